@@ -1,0 +1,11 @@
+"use client";
+/** Signs out and returns to the sign-in page. */
+import { signOut } from "next-auth/react";
+
+export function SignOutButton() {
+  return (
+    <button type="button" className="btn" onClick={() => signOut({ callbackUrl: "/signin" })}>
+      Sign out
+    </button>
+  );
+}

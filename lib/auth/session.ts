@@ -1,0 +1,45 @@
+/** requireUser / requireRole: the one gate every route handler, server action and page goes through. */
+import "server-only";
+import { getServerSession } from "next-auth";
+import { redirect } from "next/navigation";
+import { authOptions } from "./options";
+import { forbidden, unauthorized } from "@/lib/errors";
+import { findUserById } from "@/lib/db/users";
+import type { Role } from "@/lib/roles";
+
+export interface SessionUser {
+  id: number;
+  name: string;
+  email: string;
+  role: Role;
+}
+
+/** The signed-in user (re-read from the database so a disabled account or changed role takes effect), or null. */
+export async function currentUser(): Promise<SessionUser | null> {
+  const session = await getServerSession(authOptions);
+  const id = session?.user?.id;
+  if (!id) return null;
+  const user = await findUserById(id);
+  return user ? { id: user.id, name: user.name, email: user.email, role: user.role } : null;
+}
+
+/** Throws 401 when nobody is signed in. */
+export async function requireUser(): Promise<SessionUser> {
+  const user = await currentUser();
+  if (!user) throw unauthorized();
+  return user;
+}
+
+/** Throws 401 when signed out, 403 when the user's role is not in `allowed`. */
+export async function requireRole(allowed: readonly Role[]): Promise<SessionUser> {
+  const user = await requireUser();
+  if (!allowed.includes(user.role)) throw forbidden();
+  return user;
+}
+
+/** For pages: redirects signed-out visitors to the sign-in page. */
+export async function requirePageUser(callbackUrl = "/projects"): Promise<SessionUser> {
+  const user = await currentUser();
+  if (!user) redirect(`/signin?callbackUrl=${encodeURIComponent(callbackUrl)}`);
+  return user;
+}

@@ -1,0 +1,76 @@
+/** Projects: list for any signed-in user, create for managers. */
+import "server-only";
+import { z } from "zod";
+import { db } from "./knex";
+import { conflict, forbidden, invalid } from "@/lib/errors";
+import type { SessionUser } from "@/lib/auth/session";
+
+interface ProjectRow {
+  id: number;
+  name: string;
+  description: string;
+  created_by: number;
+  checker_id: number | null;
+  created_at: Date;
+  checker_name?: string | null;
+  creator_name?: string | null;
+}
+
+export interface ProjectDto {
+  id: number;
+  name: string;
+  description: string;
+  checker: { id: number; name: string } | null;
+  createdBy: string | null;
+  createdAt: string;
+}
+
+export const projectInputSchema = z.object({
+  name: z.string().trim().min(3, "Name needs at least 3 characters.").max(120, "Name is at most 120 characters."),
+  description: z.string().trim().max(2000, "Description is at most 2000 characters.").default(""),
+  checkerId: z.coerce.number().int().positive().nullable().optional(),
+});
+export type ProjectInput = z.infer<typeof projectInputSchema>;
+
+function toDto(row: ProjectRow): ProjectDto {
+  return {
+    id: row.id,
+    name: row.name,
+    description: row.description,
+    checker: row.checker_id ? { id: row.checker_id, name: row.checker_name ?? "" } : null,
+    createdBy: row.creator_name ?? null,
+    createdAt: new Date(row.created_at).toISOString(),
+  };
+}
+
+function baseQuery() {
+  return db()<ProjectRow>("projects as p")
+    .leftJoin("users as c", "c.id", "p.checker_id")
+    .leftJoin("users as u", "u.id", "p.created_by")
+    .select("p.*", "c.name as checker_name", "u.name as creator_name");
+}
+
+/** Lists every project, newest first. Every role may read projects. */
+export async function listProjects(_user: SessionUser): Promise<ProjectDto[]> {
+  const rows = await baseQuery().orderBy("p.created_at", "desc").orderBy("p.id", "desc");
+  return rows.map(toDto);
+}
+
+/** Creates a project; managers only. */
+export async function createProject(user: SessionUser, input: ProjectInput): Promise<ProjectDto> {
+  if (user.role !== "manager") throw forbidden("Only managers create projects.");
+  if (input.checkerId) {
+    const checker = await db()("users").where({ id: input.checkerId, role: "checker", active: true }).first();
+    if (!checker) throw invalid("The chosen checker does not exist.", { fieldErrors: { checkerId: ["Pick an active checker."] } });
+  }
+  const clash = await db()("projects").where({ name: input.name }).first();
+  if (clash) throw conflict(`A project named "${input.name}" already exists.`);
+  const [id] = await db()("projects").insert({
+    name: input.name,
+    description: input.description ?? "",
+    created_by: user.id,
+    checker_id: input.checkerId ?? null,
+  });
+  const row = await baseQuery().where("p.id", id).first();
+  return toDto(row as ProjectRow);
+}

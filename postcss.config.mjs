@@ -1,0 +1,2 @@
+/** PostCSS: Tailwind 3 reads tailwind.config.ts itself. */
+export default { plugins: { tailwindcss: {}, autoprefixer: {} } };

@@ -1,0 +1,28 @@
+#!/usr/bin/env bash
+# Shared by start.sh and test.sh: install npm packages from the lock file when needed.
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+export NEXT_TELEMETRY_DISABLED=1
+
+ensure_node_modules() {
+  local stamp="$ROOT/node_modules/.package-lock.json"
+  if [ ! -f "$stamp" ] || [ "$ROOT/package-lock.json" -nt "$stamp" ]; then
+    echo "[setup] npm ci" >&2
+    (cd "$ROOT" && npm ci --no-audit --no-fund --loglevel=error)
+  fi
+}
+
+ensure_secret() {
+  mkdir -p "$ROOT/.data"
+  local f="$ROOT/.data/nextauth-secret"
+  [ -s "$f" ] || node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))' >"$f"
+  export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(cat "$f")}"
+}
+
+build_app() {
+  echo "[setup] next build" >&2
+  (cd "$ROOT" && node_modules/.bin/next build >"$ROOT/.data/next-build.log" 2>&1) || {
+    tail -40 "$ROOT/.data/next-build.log" >&2
+    echo "[setup] next build failed; full log in .data/next-build.log" >&2
+    return 1
+  }
+}

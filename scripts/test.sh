@@ -1,0 +1,30 @@
+#!/usr/bin/env bash
+# npm test: unit, integration (own MariaDB on :3408) and browser tests (Debian chromium). Installs what it needs.
+set -euo pipefail
+source "$(dirname "$0")/common.sh"
+cd "$ROOT"
+export DB_PORT=3408 DB_USER=sixfold DB_PASSWORD=sixfold-test
+mkdir -p .data/results
+
+ensure_node_modules
+if [ ! -x /usr/bin/chromium ]; then
+  echo "[test] installing Debian chromium" >&2
+  apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+fi
+DB_NAME=sixfold_it bash scripts/db.sh up test "$DB_PORT"
+DB_NAME=sixfold_e2e bash scripts/db.sh up test "$DB_PORT"
+trap 'bash scripts/db.sh down test "$DB_PORT" || true' EXIT
+
+status=0
+echo "== unit and integration tests (vitest)" >&2
+DB_NAME=sixfold_it node_modules/.bin/vitest run --reporter=default --reporter=json \
+  --outputFile.json=.data/results/vitest.json || status=1
+
+echo "== browser tests (playwright, Debian chromium)" >&2
+export NEXTAUTH_SECRET=test-secret-not-for-production
+build_app
+DB_NAME=sixfold_e2e PLAYWRIGHT_JSON_OUTPUT_NAME=.data/results/playwright.json \
+  node_modules/.bin/playwright test --reporter=list,json || status=1
+
+node scripts/test-summary.mjs .data/results/vitest.json .data/results/playwright.json || status=1
+exit $status
