@@ -1,0 +1,255 @@
+/**
+ * The constraint matrix and what its rank says (analysis.md §1–§2): counts, free motions as screws in a
+ * readable basis, the canonical self-stress basis, conditioning and the least-constrained direction.
+ */
+import { Matrix } from "ml-matrix";
+import { GROUND, type Layout, type Vec3 } from "@/lib/layout/model";
+import { alignBasis, columns, nullSpace, rankOf, rref, svdRight } from "./linalg";
+import { cross, dot, norm, scale, sub, unit } from "./vec";
+
+export interface Screw {
+  kind: "translation" | "rotation" | "screw" | "still";
+  direction: Vec3 | null;
+  point: Vec3 | null;
+  pitch: number | null;
+}
+
+export interface Motion {
+  twist: Record<string, { omega: Vec3; v: Vec3 }>;
+  screws: Record<string, Screw>;
+  /** the scaled twist [L·ω; v + ω × c] per body, concatenated (unit length) */
+  scaled: number[];
+}
+
+export interface SelfStressState {
+  pivot: string;
+  forces: Record<string, number>;
+}
+
+export interface ConstraintAnalysis {
+  bodyIds: string[];
+  centroid: Vec3;
+  length: number;
+  /** scaled constraint matrix, m × 6N */
+  A: Matrix;
+  /** unit normals per contact, in contact order */
+  normals: Vec3[];
+  singularValues: number[];
+  counts: { bodies: number; contacts: number; rank: number; freedoms: number; redundancies: number; grubler: number };
+  conditioning: number;
+  weakestDirection: Motion | null;
+  freeMotions: Motion[];
+  /** orthonormal basis of the free-motion space (scaled twists, columns) */
+  nullBasis: Matrix;
+  selfStressDimension: number;
+  selfStress: SelfStressState[];
+  /** orthonormal basis of the self-stress space (columns, contact order) */
+  selfStressBasis: Matrix;
+}
+
+export const MAX_SELF_STRESS_LISTED = 50;
+/** relative size below which a twist component counts as zero */
+const ZERO = 1e-9;
+
+/** Centroid of all contact points and the characteristic length L (1 when the points coincide or there are none). */
+export function scaling(layout: Layout): { centroid: Vec3; length: number } {
+  const m = layout.contacts.length;
+  if (m === 0) return { centroid: [0, 0, 0], length: 1 };
+  const c: Vec3 = [0, 0, 0];
+  for (const k of layout.contacts) for (let i = 0; i < 3; i++) c[i] += k.point[i] / m;
+  let sum = 0;
+  for (const k of layout.contacts) sum += dot(sub(k.point, c), sub(k.point, c));
+  const L = Math.sqrt(sum / m);
+  return { centroid: c, length: L > 0 ? L : 1 };
+}
+
+/** Builds the scaled constraint matrix: row i = [((pᵢ − c) × n̂ᵢ)ᵀ / L, n̂ᵢᵀ], + in body's columns, − in on's. */
+export function buildMatrix(layout: Layout, bodyIndex: Map<string, number>, centroid: Vec3, L: number): { A: Matrix; normals: Vec3[] } {
+  const m = layout.contacts.length;
+  const A = new Matrix(m, 6 * bodyIndex.size);
+  const normals: Vec3[] = [];
+  layout.contacts.forEach((k, i) => {
+    const n = unit(k.normal);
+    normals.push(n);
+    const mom = scale(cross(sub(k.point, centroid), n), 1 / L);
+    const row = [...mom, ...n];
+    const place = (bodyId: string, sign: number) => {
+      if (bodyId === GROUND) return;
+      const b = bodyIndex.get(bodyId)!;
+      for (let j = 0; j < 6; j++) A.set(i, 6 * b + j, A.get(i, 6 * b + j) + sign * row[j]);
+    };
+    place(k.body, 1);
+    place(k.on, -1);
+  });
+  return { A, normals };
+}
+
+/** Presents one scaled twist (unit length) as per-body twists about the origin and screws. */
+export function toMotion(scaled: number[], bodyIds: string[], c: Vec3, L: number): Motion {
+  const len = Math.hypot(...scaled) || 1;
+  let s = scaled.map((v) => v / len);
+  let big = 0;
+  for (const v of s) if (Math.abs(v) > Math.abs(big) + 1e-12) big = v;
+  if (big < 0) s = s.map((v) => -v);
+  const twist: Motion["twist"] = {};
+  const screws: Motion["screws"] = {};
+  bodyIds.forEach((id, b) => {
+    const sw: Vec3 = [s[6 * b], s[6 * b + 1], s[6 * b + 2]];
+    const sv: Vec3 = [s[6 * b + 3], s[6 * b + 4], s[6 * b + 5]];
+    const omega = scale(sw, 1 / L);
+    const vc = sv;
+    const v = sub(vc, cross(omega, c));
+    twist[id] = { omega: clean(omega), v: clean(v) };
+    const wN = norm(sw);
+    const vN = norm(sv);
+    if (wN < ZERO && vN < ZERO) {
+      screws[id] = { kind: "still", direction: null, point: null, pitch: null };
+    } else if (wN < ZERO * Math.max(1, vN) * 10) {
+      screws[id] = { kind: "translation", direction: clean(unit(sv)), point: null, pitch: null };
+    } else {
+      const w2 = dot(omega, omega);
+      const pitch = dot(omega, v) / w2;
+      const point = clean(sub(c, scale(cross(vc, omega), 1 / w2)));
+      const isRotation = Math.abs(pitch) < 1e-7 * L;
+      screws[id] = {
+        kind: isRotation ? "rotation" : "screw",
+        direction: clean(unit(omega)),
+        point,
+        pitch: isRotation ? 0 : pitch,
+      };
+    }
+  });
+  return { twist, screws, scaled: s };
+}
+
+function clean(v: Vec3): Vec3 {
+  return v.map((x) => (Math.abs(x) < 1e-13 ? 0 : x)) as Vec3;
+}
+
+/** Runs the rank analysis of a validated layout. */
+export function analyseConstraint(layout: Layout): ConstraintAnalysis {
+  const bodyIds = layout.bodies.map((b) => b.id);
+  const bodyIndex = new Map(bodyIds.map((id, i) => [id, i]));
+  const N = bodyIds.length;
+  const m = layout.contacts.length;
+  const { centroid, length } = scaling(layout);
+  const { A, normals } = buildMatrix(layout, bodyIndex, centroid, length);
+  const n = 6 * N;
+
+  const right = svdRight(A);
+  const s = right.s;
+  const r = rankOf(s, layout.tolerance);
+  const freedoms = n - r;
+  const redundancies = m - r;
+  const conditioning = r === 0 ? 0 : s[r - 1] / s[0];
+  const weakestDirection = r === 0 ? null : toMotion(right.V.getColumn(r - 1), bodyIds, centroid, length);
+
+  const nullBasis = columns(right.V, r, n);
+  const freeMotions = readableMotions(nullBasis, N).map((col) => toMotion(col, bodyIds, centroid, length));
+
+  // Left null space from the SVD of Aᵀ (same singular values, so the same rank r).
+  const selfStressBasis = m > 0 ? nullSpace(A.transpose(), r) : new Matrix(0, 0);
+  const selfStress = canonicalSelfStress(selfStressBasis, layout.contacts.map((k) => k.id));
+
+  return {
+    bodyIds,
+    centroid,
+    length,
+    A,
+    normals,
+    singularValues: s,
+    counts: { bodies: N, contacts: m, rank: r, freedoms, redundancies, grubler: 6 * N - m },
+    conditioning,
+    weakestDirection,
+    freeMotions,
+    nullBasis,
+    selfStressDimension: redundancies,
+    selfStress,
+    selfStressBasis,
+  };
+}
+
+/**
+ * A readable basis of the free-motion space: pure translations first (the part of the space with no
+ * rotation, axes closest to coordinate directions), then the rest with rotation axes closest to
+ * coordinate directions, kept orthogonal to the translations (which puts each axis as near the centroid
+ * as the space allows and removes pitch that a free translation along the axis would explain).
+ */
+function readableMotions(Nb: Matrix, N: number): number[][] {
+  const f = Nb.columns;
+  if (f === 0) return [];
+  const omegaRows: number[] = [];
+  const vRows: number[] = [];
+  for (let b = 0; b < N; b++) for (let j = 0; j < 3; j++) {
+    omegaRows.push(6 * b + j);
+    vRows.push(6 * b + 3 + j);
+  }
+  const Nw = Nb.selection(omegaRows, [...Array(f).keys()]);
+  const { s: sw, V: Vw } = svdRight(Nw);
+  const rw = rankOf(sw, 1e-8);
+  const Zt = columns(Vw, rw, f);
+  const Zr = columns(Vw, 0, rw);
+  const out: number[][] = [];
+  if (Zt.columns > 0) {
+    const T = Nb.mmul(Zt);
+    const aligned = alignBasis(T, vRows);
+    for (let c = 0; c < aligned.columns; c++) out.push(aligned.getColumn(c));
+  }
+  if (Zr.columns > 0) {
+    const R = Nb.mmul(Zr);
+    const Rw = R.selection(omegaRows, [...Array(R.columns).keys()]);
+    // orthonormal basis of the ω column space (left singular vectors of Rw), aligned with coordinate axes
+    const Qn = columns(svdRight(Rw.transpose()).V, 0, Rw.columns);
+    const targets = alignBasis(Qn, [...omegaRows.keys()]);
+    const pinv = pseudoInverse(Rw);
+    const rotations: number[][] = [];
+    for (let c = 0; c < targets.columns; c++) {
+      const x = pinv.mmul(Matrix.columnVector(targets.getColumn(c)));
+      rotations.push(R.mmul(x).getColumn(0));
+    }
+    // rotations (pitch ≈ 0) before screws, keeping the axis order otherwise
+    const pitchOf = (t: number[]) => {
+      let num = 0;
+      let den = 0;
+      for (let b = 0; b < N; b++) for (let j = 0; j < 3; j++) {
+        num += t[6 * b + j] * t[6 * b + 3 + j];
+        den += t[6 * b + j] ** 2;
+      }
+      return Math.abs(num) / Math.max(den, 1e-300);
+    };
+    rotations.sort((a, b) => Number(pitchOf(a) > 1e-7) - Number(pitchOf(b) > 1e-7));
+    out.push(...rotations);
+  }
+  return out;
+}
+
+function pseudoInverse(M: Matrix): Matrix {
+  // M has full column rank here: (MᵀM)⁻¹Mᵀ through the SVD for stability
+  const { s, V } = svdRight(M);
+  const k = M.columns;
+  const Vk = columns(V, 0, k);
+  const U = M.mmul(Vk);
+  for (let c = 0; c < k; c++) U.setColumn(c, U.getColumn(c).map((v) => v / (s[c] * s[c])));
+  return Vk.mmul(U.transpose());
+}
+
+/**
+ * The canonical self-stress basis of analysis.md §2: the reduced row-echelon form of the self-stress
+ * space with contacts in sorted-id order; coefficients below 1e-9 of a state's largest set to zero.
+ */
+export function canonicalSelfStress(Y: Matrix, contactIds: string[]): SelfStressState[] {
+  const k = Y.columns;
+  if (k === 0) return [];
+  const order = contactIds.map((id, i) => [id, i] as const).sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+  const rowsIn: number[][] = [];
+  for (let c = 0; c < k; c++) rowsIn.push(order.map(([, i]) => Y.get(i, c)));
+  const { rows, pivots } = rref(rowsIn, 1e-9);
+  return rows.slice(0, MAX_SELF_STRESS_LISTED).map((row, si) => {
+    const max = Math.max(...row.map(Math.abs));
+    const forces: Record<string, number> = {};
+    row.forEach((v, j) => {
+      if (Math.abs(v) >= 1e-9 * max) forces[order[j][0]] = v;
+    });
+    return { pivot: order[pivots[si]][0], forces };
+  });
+}

@@ -1,0 +1,53 @@
+/** The readable terminal report of the CLI. */
+import type { Report } from "@/lib/engine";
+import { unitLabel } from "@/lib/layout/units";
+import { axisName, dir, num, vec } from "@/lib/analysis/format";
+
+const mark = { error: "ERROR  ", warning: "WARNING", info: "INFO   " } as const;
+
+/** Renders a report for a terminal (plain text, markdown bodies indented). */
+export function renderText(r: Report): string {
+  const u = unitLabel(r.units.length);
+  const lines: string[] = [];
+  const c = r.counts;
+  lines.push(`${r.layout}`);
+  lines.push(`${"=".repeat(Math.min(78, r.layout.length))}`);
+  lines.push(`bodies ${c.bodies}   contacts ${c.contacts}   rank ${c.rank}`);
+  lines.push(`freedoms ${c.freedoms}   redundancies ${c.redundancies}   Grübler–Kutzbach 6N − m = ${c.grubler}`);
+  lines.push(`conditioning σ_r/σ_max ${num(r.conditioning)}   characteristic length ${num(r.scaling.length)} ${u}   centroid ${vec(r.scaling.centroid, u)}`);
+  if (r.freeMotions.length) {
+    lines.push("", "Free motions");
+    r.freeMotions.forEach((m, i) => {
+      for (const [b, s] of Object.entries(m.screws)) {
+        if (s.kind === "still") continue;
+        const d = s.direction!;
+        const name = axisName(d) ?? dir(d);
+        const text =
+          s.kind === "translation"
+            ? `translation along ${name}`
+            : `${s.kind} about ${name} through ${vec(s.point!, u)}${s.kind === "screw" ? `, pitch ${num(s.pitch!)} ${u}/rad` : ""}`;
+        lines.push(`  ${i + 1}. ${b}: ${text}`);
+      }
+    });
+  }
+  if (r.selfStressDimension) {
+    lines.push("", `Over-constrained loops (self-stress states): ${r.selfStressDimension}`);
+    r.selfStress.forEach((s, i) => {
+      const parts = Object.entries(s.forces).map(([k, v]) => `${k} ${num(v, 3)}`);
+      lines.push(`  ${i + 1}. pivot ${s.pivot}: ${parts.join(", ")}`);
+    });
+  }
+  if (r.seating?.forces) {
+    const fu = r.units.force;
+    lines.push("", `Seating (stiffness: ${r.seating.stiffness}, margin ${r.seating.margin === null ? "—" : num(r.seating.margin)})`);
+    for (const [k, v] of Object.entries(r.seating.forces)) lines.push(`  ${k.padEnd(12)} ${num(v).padStart(10)} ${fu}${r.seating.liftOff.includes(k) ? "  lifted off" : ""}`);
+  }
+  if (r.foundation) lines.push("", `Foundation coupling: at most ${num(r.foundation.maxPerMicrometre)} ${r.units.force} per µm of support rise`);
+  lines.push("", `Findings: ${r.findings.length}`);
+  for (const f of r.findings) {
+    lines.push("", `${mark[f.severity]} ${f.rule}: ${f.title}`);
+    for (const l of f.body.split("\n")) lines.push(`    ${l}`);
+  }
+  lines.push("");
+  return lines.join("\n");
+}

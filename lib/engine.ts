@@ -1,0 +1,72 @@
+/** The whole check of one layout: analysis + rules → the machine-readable report of analysis.md §8. */
+import type { Layout, Vec3 } from "@/lib/layout/model";
+import { analyseLayout, type EngineAnalysis, type Motion } from "@/lib/analysis";
+import { runRules, type RuleOverride } from "@/rules";
+import type { Finding } from "@/rules/types";
+
+export interface ReportMotion {
+  twist: Motion["twist"];
+  screws: Motion["screws"];
+}
+
+export interface SeatingReport {
+  forces: Record<string, number> | null;
+  liftOff: string[];
+  stiffness: "file" | "hertz" | "equal" | "none";
+  margin: number | null;
+}
+
+export interface HertzEntry {
+  semiMajor: number;
+  semiMinor: number;
+  maxPressureMPa: number;
+  approachUm: number;
+  stiffness: number;
+}
+
+export interface Report {
+  layout: string;
+  units: Layout["units"];
+  scaling: { centroid: Vec3; length: number };
+  counts: { bodies: number; contacts: number; rank: number; freedoms: number; redundancies: number; grubler: number };
+  conditioning: number;
+  weakestDirection: ReportMotion | null;
+  freeMotions: ReportMotion[];
+  selfStressDimension: number;
+  selfStress: { pivot: string; forces: Record<string, number> }[];
+  seating: SeatingReport | null;
+  hertz: Record<string, HertzEntry>;
+  foundation: { sensitivity: Record<string, Record<string, number>>; maxPerMicrometre: number } | null;
+  loadCases: { id: string; seating: SeatingReport | null; hertz: Record<string, HertzEntry> }[];
+  findings: Finding[];
+}
+
+const motion = (m: Motion): ReportMotion => ({ twist: m.twist, screws: m.screws });
+
+/** Builds the report from an analysis and its findings. */
+export function buildReport(analysis: EngineAnalysis, findings: Finding[]): Report {
+  const c = analysis.constraint;
+  return {
+    layout: analysis.layout.name,
+    units: analysis.layout.units,
+    scaling: { centroid: c.centroid, length: c.length },
+    counts: c.counts,
+    conditioning: c.conditioning,
+    weakestDirection: c.weakestDirection ? motion(c.weakestDirection) : null,
+    freeMotions: c.freeMotions.map(motion),
+    selfStressDimension: c.selfStressDimension,
+    selfStress: c.selfStress,
+    seating: null,
+    hertz: {},
+    foundation: null,
+    loadCases: [],
+    findings,
+  };
+}
+
+/** Analyses a validated layout, runs the rules and returns analysis and report. */
+export function runEngine(layout: Layout, overrides: Record<string, RuleOverride> = {}): { analysis: EngineAnalysis; report: Report } {
+  const analysis = analyseLayout(layout);
+  const findings = runRules(analysis, overrides);
+  return { analysis, report: buildReport(analysis, findings) };
+}

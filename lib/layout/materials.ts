@@ -1,0 +1,80 @@
+/**
+ * Built-in contact materials. Each value names where it comes from; "value from memory" marks a
+ * handbook figure recalled, not re-read. Allowable pressures are maximum Hertz pressures p0 for
+ * static, non-repeating contact; precision mounts usually stay well below them for repeatability.
+ */
+import type { Material } from "./model";
+
+export interface BuiltinMaterial extends Material {
+  name: string;
+  source: string;
+}
+
+export const builtinMaterials: BuiltinMaterial[] = [
+  {
+    id: "bearing-steel",
+    name: "Through-hardened bearing steel (100Cr6 / 52100 type)",
+    youngsModulusGPa: 210,
+    poissonRatio: 0.3,
+    allowableContactPressureMPa: 4200,
+    source: "E, ν: bearing handbooks 200–210 GPa / 0.3 (value from memory); p0 4200 MPa: ISO 76 static load rating basis for ball bearings",
+  },
+  {
+    id: "stainless-martensitic",
+    name: "Martensitic stainless steel (440C type), hardened",
+    youngsModulusGPa: 200,
+    poissonRatio: 0.28,
+    allowableContactPressureMPa: 3900,
+    source: "E, ν: steel handbooks (value from memory); p0 ≈ 3900 MPa from a vendor's ≈20 % lower static capacity than bearing steel with p0 ∝ C0^(1/3)",
+  },
+  {
+    id: "silicon-nitride",
+    name: "Silicon nitride, bearing grade (HIP Si3N4)",
+    youngsModulusGPa: 310,
+    poissonRatio: 0.27,
+    allowableContactPressureMPa: 4200,
+    source: "E, ν: 300–320 GPa / 0.26–0.27, handbooks (value from memory); p0: ISO 20056 rates ceramic balls somewhat above ISO 76, so the ISO 76 figure is kept (common practice, conservative)",
+  },
+  {
+    id: "cemented-carbide",
+    name: "Cemented tungsten carbide (WC–Co, ~6 % Co)",
+    youngsModulusGPa: 620,
+    poissonRatio: 0.22,
+    allowableContactPressureMPa: 4500,
+    source: "E, ν: 600–650 GPa / 0.22, handbooks (value from memory); p0: compressive strength well above 4.5 GPa, figure kept conservative (common practice)",
+  },
+  {
+    id: "alumina",
+    name: "Alumina ceramic, 99.5 %",
+    youngsModulusGPa: 370,
+    poissonRatio: 0.22,
+    allowableContactPressureMPa: 2000,
+    source: "E, ν: technical-ceramic data sheets (value from memory); p0 2000 MPa: brittle material, kept low against ring cracking (common practice)",
+  },
+  {
+    id: "fused-silica",
+    name: "Fused silica (synthetic, optical grade)",
+    youngsModulusGPa: 72.7,
+    poissonRatio: 0.16,
+    allowableContactPressureMPa: 500,
+    source: "E, ν: optical glass maker's data (value from memory); p0 500 MPa: glass fails in tension at the contact edge, figure kept low (common practice)",
+  },
+  {
+    id: "aluminium-alloy",
+    name: "Aluminium alloy 6061-T6",
+    youngsModulusGPa: 68.9,
+    poissonRatio: 0.33,
+    allowableContactPressureMPa: 440,
+    source: "E, ν, yield 276 MPa: aluminium handbooks (value from memory); p0 = 1.6 Y, onset of yield under a sphere, Johnson, Contact Mechanics §6.2 (value from memory)",
+  },
+  {
+    id: "low-expansion-alloy",
+    name: "Iron–36 % nickel low-expansion alloy, annealed",
+    youngsModulusGPa: 141,
+    poissonRatio: 0.26,
+    allowableContactPressureMPa: 440,
+    source: "E, ν, yield ≈ 276 MPa: alloy maker's data (value from memory); p0 = 1.6 Y, Johnson, Contact Mechanics §6.2 (value from memory)",
+  },
+];
+
+export const builtinMaterialIds: string[] = builtinMaterials.map((m) => m.id);

@@ -1,0 +1,171 @@
+/** The zod schema of mount-layout/1 and the cross-reference checks every encoding goes through. */
+import { z } from "zod";
+import { FORMAT, GROUND, MAX_BODIES, MAX_CONTACTS, type Layout, type LayoutError, type ParseResult } from "./model";
+import { forceUnits, lengthUnits } from "./units";
+import { builtinMaterialIds } from "./materials";
+
+const finite = z.number({ error: "must be a number" }).refine(Number.isFinite, { error: "must be a finite number" });
+const positive = finite.refine((v) => v > 0, { error: "must be greater than zero" });
+const vec3 = z.tuple([finite, finite, finite], { error: "must be a list of three numbers [x, y, z]" });
+const identifier = z
+  .string({ error: "must be a text id" })
+  .min(1, { error: "must not be empty" })
+  .max(100, { error: "is longer than 100 characters" })
+  .regex(/^[^\s\u0000-\u001f]+$/, { error: "must not contain spaces or control characters" });
+const radius = z.union([finite.refine((v) => v !== 0, { error: "a radius of zero is not allowed (use null for flat)" }), z.null()]);
+
+const bodySchema = z.object({
+  id: identifier,
+  mass: positive.optional(),
+  centerOfMass: vec3.optional(),
+});
+
+const materialSchema = z.object({
+  id: identifier,
+  youngsModulusGPa: positive,
+  poissonRatio: finite.refine((v) => v > -1 && v < 0.5, { error: "must lie between -1 and 0.5" }),
+  allowableContactPressureMPa: positive.optional(),
+});
+
+const hertzSchema = z.object({
+  radii: z.tuple([z.tuple([radius, radius]), z.tuple([radius, radius])], {
+    error: "must be [[body r1, body r2], [on r1, on r2]] (numbers or null for flat)",
+  }),
+  angleDeg: finite.default(0),
+  materials: z.tuple([identifier, identifier], { error: "must name two materials [body side, on side]" }),
+});
+
+const contactSchema = z.object({
+  id: identifier,
+  body: identifier,
+  on: identifier.default(GROUND),
+  feature: identifier.optional(),
+  point: vec3,
+  normal: vec3,
+  sense: z.enum(["unilateral", "bilateral"], { error: "must be unilateral or bilateral" }).default("unilateral"),
+  stiffness: positive.optional(),
+  hertz: hertzSchema.optional(),
+});
+
+const loadSchema = z.object({
+  id: identifier,
+  body: identifier,
+  force: vec3,
+  point: vec3,
+  moment: vec3.optional(),
+});
+
+const pointSchema = z.object({ id: identifier, body: identifier, point: vec3 });
+
+export const rawLayoutSchema = z.object({
+  format: z.literal(FORMAT, { error: `must be "${FORMAT}"` }),
+  name: z.string({ error: "must be text" }).max(200, { error: "is longer than 200 characters" }).default("unnamed layout"),
+  units: z
+    .object({
+      length: z.enum(lengthUnits, { error: `must be one of ${lengthUnits.join(", ")}` }).default("mm"),
+      force: z.enum(forceUnits, { error: `must be one of ${forceUnits.join(", ")}` }).default("N"),
+    })
+    .default({ length: "mm", force: "N" }),
+  gravity: vec3.default([0, 0, -9.80665]),
+  tolerance: positive.refine((v) => v < 1, { error: "must be below 1" }).default(1e-6),
+  intendedFreedoms: z.number({ error: "must be a number" }).int({ error: "must be a whole number" }).min(0, { error: "must not be negative" }).default(0),
+  bodies: z.array(bodySchema, { error: "must be a list of bodies" }).min(1, { error: "must declare at least one body" }).max(MAX_BODIES, { error: `has more than ${MAX_BODIES} bodies` }),
+  materials: z.array(materialSchema).max(200, { error: "has more than 200 materials" }).default([]),
+  contacts: z.array(contactSchema, { error: "must be a list of contacts" }).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} contacts` }),
+  loads: z.array(loadSchema).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} loads` }).default([]),
+  points: z.array(pointSchema).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} points` }).default([]),
+  loadCases: z
+    .array(z.object({ id: identifier, gravity: vec3.optional(), loads: z.array(identifier).optional() }))
+    .max(100, { error: "has more than 100 load cases" })
+    .optional(),
+});
+
+/** Turns a zod/JS path into a JSON pointer. */
+export function pointer(path: readonly PropertyKey[]): string {
+  return path.length === 0 ? "/" : "/" + path.map((p) => String(p).replace(/~/g, "~0").replace(/\//g, "~1")).join("/");
+}
+
+function describeIssue(issue: z.core.$ZodIssue): string {
+  if (issue.code === "invalid_type" && (issue as { input?: unknown }).input === undefined) return "is required";
+  if (issue.code === "unrecognized_keys") return issue.message;
+  return issue.message;
+}
+
+/**
+ * Validates a raw object (from any encoding) into a Layout. `locate` turns a JSON pointer into the
+ * location text of the encoding (XML element/attribute, CSV line/column); JSON uses the pointer itself.
+ */
+export function validateRaw(raw: unknown, locate: (ptr: string) => string = (p) => p): ParseResult {
+  const parsed = rawLayoutSchema.safeParse(raw);
+  if (!parsed.success) {
+    const errors = parsed.error.issues.slice(0, 200).map((issue) => {
+      const ptr = pointer(issue.path);
+      const field = issue.path.length ? String(issue.path[issue.path.length - 1]) : "file";
+      return { location: locate(ptr), message: `${field} ${describeIssue(issue)}` };
+    });
+    return { ok: false, errors };
+  }
+  const layout = parsed.data as Layout;
+  for (const c of layout.contacts) c.normal = c.normal as Layout["contacts"][number]["normal"];
+  const errors = crossCheck(layout, locate);
+  if (errors.length) return { ok: false, errors };
+  if (!layout.loadCases) delete layout.loadCases;
+  else layout.loadCases = layout.loadCases.map((lc) => ({ ...lc, gravity: lc.gravity ?? layout.gravity }));
+  return { ok: true, layout, warnings: [] };
+}
+
+function crossCheck(layout: Layout, locate: (ptr: string) => string): LayoutError[] {
+  const errors: LayoutError[] = [];
+  const err = (ptr: string, message: string) => errors.length < 200 && errors.push({ location: locate(ptr), message });
+  const uniq = (list: { id: string }[], key: string, what: string) => {
+    const seen = new Map<string, number>();
+    list.forEach((item, i) => {
+      if (seen.has(item.id)) err(`/${key}/${i}/id`, `${what} id '${item.id}' is used twice (first at /${key}/${seen.get(item.id)})`);
+      else seen.set(item.id, i);
+    });
+    return seen;
+  };
+  const bodies = uniq(layout.bodies, "bodies", "body");
+  uniq(layout.contacts, "contacts", "contact");
+  uniq(layout.loads, "loads", "load");
+  uniq(layout.points, "points", "point");
+  const materials = uniq(layout.materials, "materials", "material");
+  if (layout.loadCases) uniq(layout.loadCases, "loadCases", "load case");
+
+  layout.bodies.forEach((b, i) => {
+    if (b.id === GROUND) err(`/bodies/${i}/id`, "'ground' is the fixed body and may not be declared");
+    if (b.mass !== undefined && !b.centerOfMass) err(`/bodies/${i}/centerOfMass`, "centerOfMass is required when mass is given");
+  });
+  layout.materials.forEach((m, i) => {
+    if (builtinMaterialIds.includes(m.id)) err(`/materials/${i}/id`, `material id '${m.id}' is a built-in material and may not be redefined`);
+  });
+  const knownMaterial = (id: string) => materials.has(id) || builtinMaterialIds.includes(id);
+  layout.contacts.forEach((c, i) => {
+    if (c.body === GROUND) err(`/contacts/${i}/body`, "body may not be 'ground' (put ground in 'on')");
+    else if (!bodies.has(c.body)) err(`/contacts/${i}/body`, `body '${c.body}' is not declared`);
+    if (c.on !== GROUND && !bodies.has(c.on)) err(`/contacts/${i}/on`, `body '${c.on}' is not declared`);
+    if (c.on === c.body) err(`/contacts/${i}/on`, `a contact cannot join body '${c.body}' to itself`);
+    const [x, y, z] = c.normal;
+    if (Math.hypot(x, y, z) === 0 || !Number.isFinite(Math.hypot(x, y, z))) err(`/contacts/${i}/normal`, "normal has zero length");
+    if (c.hertz) {
+      c.hertz.materials.forEach((m, j) => {
+        if (!knownMaterial(m)) err(`/contacts/${i}/hertz/materials/${j}`, `material '${m}' is neither built in nor declared in materials`);
+      });
+      const [[a1, a2], [b1, b2]] = c.hertz.radii;
+      if ([a1, a2, b1, b2].every((r) => r === null)) err(`/contacts/${i}/hertz/radii`, "two flat surfaces do not make a point contact");
+    }
+  });
+  layout.loads.forEach((l, i) => {
+    if (!bodies.has(l.body)) err(`/loads/${i}/body`, `body '${l.body}' is not declared`);
+  });
+  layout.points.forEach((p, i) => {
+    if (!bodies.has(p.body)) err(`/points/${i}/body`, `body '${p.body}' is not declared`);
+  });
+  const loadIds = new Set(layout.loads.map((l) => l.id));
+  layout.loadCases?.forEach((lc, i) =>
+    lc.loads?.forEach((id, j) => {
+      if (!loadIds.has(id)) err(`/loadCases/${i}/loads/${j}`, `load '${id}' is not declared in loads`);
+    }),
+  );
+  return errors;
+}

@@ -1,0 +1,43 @@
+/** The rule registry (alphabetical) and the runner that turns an analysis into findings. */
+import countMismatch from "./count-mismatch";
+import freeMotion from "./free-motion";
+import missingData from "./missing-data";
+import redundantConstraint from "./redundant-constraint";
+import weakConstraint from "./weak-constraint";
+import { CAUTION, needsCaution } from "./describe";
+import { fingerprintOf, type Finding, type Rule, type Severity } from "./types";
+import type { EngineAnalysis } from "@/lib/analysis";
+
+export const rules: Rule<any>[] = [countMismatch, freeMotion, missingData, redundantConstraint, weakConstraint]; // eslint-disable-line @typescript-eslint/no-explicit-any
+
+export interface RuleOverride {
+  severity?: Severity;
+  options?: Record<string, unknown>;
+}
+
+const order: Record<Severity, number> = { error: 0, warning: 1, info: 2 };
+
+/** Runs every rule (with project overrides) and returns findings, errors first. */
+export function runRules(analysis: EngineAnalysis, overrides: Record<string, RuleOverride> = {}): Finding[] {
+  const findings: Finding[] = [];
+  const caution = needsCaution(analysis.layout);
+  for (const rule of rules) {
+    const o = overrides[rule.meta.id] ?? {};
+    const options = rule.meta.options.parse(o.options ?? {});
+    const severity = o.severity ?? rule.meta.severity;
+    for (const d of rule.check({ layout: analysis.layout, analysis, options })) {
+      findings.push({
+        rule: rule.meta.id,
+        severity,
+        title: d.title,
+        fingerprint: fingerprintOf(rule.meta.id, d),
+        contacts: d.contacts ?? [],
+        features: d.features ?? [],
+        bodies: d.bodies ?? [],
+        ...(d.loadCase ? { loadCase: d.loadCase } : {}),
+        body: caution && severity === "error" ? `${d.body}\n\n${CAUTION}` : d.body,
+      });
+    }
+  }
+  return findings.sort((a, b) => order[a.severity] - order[b.severity]);
+}

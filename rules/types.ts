@@ -1,0 +1,74 @@
+/** The rule framework: defineRule, metadata, options with zod defaults, findings with stable fingerprints. */
+import type { z } from "zod";
+import type { Layout } from "@/lib/layout/model";
+import type { EngineAnalysis } from "@/lib/analysis";
+
+export type Severity = "error" | "warning" | "info";
+export const severities: Severity[] = ["error", "warning", "info"];
+
+export interface RuleMeta<O> {
+  /** kebab-case id, equal to the file name */
+  id: string;
+  severity: Severity;
+  /** one line: what the rule checks */
+  summary: string;
+  /** markdown: why it matters and how the check works */
+  explanation: string;
+  /** the published source of the method */
+  source: string;
+  /** options schema; parsing `{}` gives the defaults */
+  options: z.ZodType<O>;
+}
+
+/** What a rule's check reports; the runner adds rule id, severity and fingerprint. */
+export interface FindingDraft {
+  title: string;
+  /** markdown with numbers and units */
+  body: string;
+  contacts?: string[];
+  features?: string[];
+  bodies?: string[];
+  /** self-stress pivot contact, part of the fingerprint */
+  pivot?: string;
+  /** load case id, part of the fingerprint */
+  loadCase?: string;
+  /** further ids that identify this finding (beyond contacts, features and bodies) */
+  keys?: string[];
+}
+
+export interface Finding {
+  rule: string;
+  severity: Severity;
+  title: string;
+  fingerprint: string;
+  contacts: string[];
+  features: string[];
+  bodies: string[];
+  loadCase?: string;
+  body: string;
+}
+
+export interface RuleContext<O> {
+  layout: Layout;
+  analysis: EngineAnalysis;
+  options: O;
+}
+
+export interface Rule<O = unknown> {
+  meta: RuleMeta<O>;
+  check(ctx: RuleContext<O>): FindingDraft[];
+}
+
+/** Declares a rule (identity at run time; gives the check its typed options). */
+export function defineRule<O>(rule: Rule<O>): Rule<O> {
+  return rule;
+}
+
+/** A stable fingerprint: rule id + sorted involved ids (+ pivot, + load case). */
+export function fingerprintOf(ruleId: string, d: FindingDraft): string {
+  const ids = [...new Set([...(d.contacts ?? []), ...(d.features ?? []).map((f) => `feature:${f}`), ...(d.bodies ?? []).map((b) => `body:${b}`), ...(d.keys ?? [])])].sort();
+  let fp = `${ruleId}|${ids.join(",")}`;
+  if (d.pivot) fp += `|pivot:${d.pivot}`;
+  if (d.loadCase) fp += `|case:${d.loadCase}`;
+  return fp;
+}
