@@ -2,9 +2,9 @@
  * The constraint matrix and what its rank says (analysis.md §1–§2): counts, free motions as screws in a
  * readable basis, the canonical self-stress basis, conditioning and the least-constrained direction.
  */
-import { Matrix } from "ml-matrix";
+import { Matrix, solve } from "ml-matrix";
 import { GROUND, type Layout, type Vec3 } from "@/lib/layout/model";
-import { alignBasis, columns, nullSpace, rankOf, rref, svdRight } from "./linalg";
+import { alignBasis, columns, nullSpace, rankOf, svdRight } from "./linalg";
 import { cross, dot, norm, scale, sub, unit } from "./vec";
 
 export interface Screw {
@@ -60,7 +60,10 @@ export function scaling(layout: Layout): { centroid: Vec3; length: number } {
   let sum = 0;
   for (const k of layout.contacts) sum += dot(sub(k.point, c), sub(k.point, c));
   const L = Math.sqrt(sum / m);
-  return { centroid: c, length: L > 0 ? L : 1 };
+  const length = L > 0 ? L : 1;
+  // round-off of the mean (e.g. 1e-15 for a symmetric layout) is shown as the zero it is
+  const spread = Math.max(length, ...c.map(Math.abs));
+  return { centroid: c.map((x) => (Math.abs(x) < 1e-12 * spread ? 0 : x)) as Vec3, length };
 }
 
 /** Builds the scaled constraint matrix: row i = [((pᵢ − c) × n̂ᵢ)ᵀ / L, n̂ᵢᵀ], + in body's columns, − in on's. */
@@ -236,20 +239,49 @@ function pseudoInverse(M: Matrix): Matrix {
 /**
  * The canonical self-stress basis of analysis.md §2: the reduced row-echelon form of the self-stress
  * space with contacts in sorted-id order; coefficients below 1e-9 of a state's largest set to zero.
+ *
+ * Computed without Gauss–Jordan sweeps (which lose accuracy when a pivot is small): the pivot
+ * contacts are the first contacts, in sorted order, whose rows of the orthonormal basis Y are
+ * independent of the earlier ones (Gram–Schmidt residual above 1e-8); then R = (Y_Pᵀ)⁻¹ Yᵀ, which is
+ * the RREF exactly (R[:, P] = I, and every earlier non-pivot column is a combination of earlier pivots).
  */
 export function canonicalSelfStress(Y: Matrix, contactIds: string[]): SelfStressState[] {
   const k = Y.columns;
   if (k === 0) return [];
   const order = contactIds.map((id, i) => [id, i] as const).sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
-  const rowsIn: number[][] = [];
-  for (let c = 0; c < k; c++) rowsIn.push(order.map(([, i]) => Y.get(i, c)));
-  const { rows, pivots } = rref(rowsIn, 1e-9);
-  return rows.slice(0, MAX_SELF_STRESS_LISTED).map((row, si) => {
+  const basis: number[][] = [];
+  const pivots: number[] = [];
+  for (let j = 0; j < order.length && pivots.length < k; j++) {
+    const y = Y.getRow(order[j][1]);
+    const res = y.slice();
+    for (let pass = 0; pass < 2; pass++) {
+      for (const b of basis) {
+        let d = 0;
+        for (let c = 0; c < k; c++) d += b[c] * res[c];
+        for (let c = 0; c < k; c++) res[c] -= d * b[c];
+      }
+    }
+    const len = Math.hypot(...res);
+    if (len > 1e-8) {
+      basis.push(res.map((v) => v / len));
+      pivots.push(j);
+    }
+  }
+  const sortedYt = new Matrix(k, order.length);
+  order.forEach(([, i], j) => sortedYt.setColumn(j, Y.getRow(i)));
+  const YPt = new Matrix(k, pivots.length);
+  pivots.forEach((j, c) => YPt.setColumn(c, sortedYt.getColumn(j)));
+  const R = solve(YPt, sortedYt);
+  const states: SelfStressState[] = [];
+  for (let si = 0; si < Math.min(pivots.length, MAX_SELF_STRESS_LISTED); si++) {
+    const row = R.getRow(si);
+    pivots.forEach((pj, c) => (row[pj] = c === si ? 1 : 0));
     const max = Math.max(...row.map(Math.abs));
     const forces: Record<string, number> = {};
     row.forEach((v, j) => {
       if (Math.abs(v) >= 1e-9 * max) forces[order[j][0]] = v;
     });
-    return { pivot: order[pivots[si]][0], forces };
-  });
+    states.push({ pivot: order[pivots[si]][0], forces });
+  }
+  return states;
 }

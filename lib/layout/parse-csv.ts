@@ -19,8 +19,9 @@ export interface CsvOptions {
 /** Parses a CSV contact list; units come from the options (the file carries none). */
 export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseResult {
   let records: { record: string[]; info: { lines: number } }[];
+  // csv-parse types the `info: true` result loosely; the shape is { record, info }
   try {
-    records = parse(text.replace(/^\uFEFF/, ""), { info: true, skip_empty_lines: true, trim: true, relax_quotes: false });
+    records = parse(text.replace(/^\uFEFF/, ""), { info: true, skip_empty_lines: true, trim: true, relax_quotes: false }) as unknown as typeof records;
   } catch (e) {
     const err = e as Error & { lines?: number; code?: string };
     const detail = err.code === "CSV_RECORD_INCONSISTENT_FIELDS_LENGTH" ? "this row has a different number of columns than the header" : err.message.replace(/^Invalid Record Length: /, "");
@@ -77,7 +78,7 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
       normal: [c.nx, c.ny, c.nz],
     });
     for (const [k, cols] of [["point", ["x", "y", "z"]], ["normal", ["nx", "ny", "nz"]]] as const) {
-      where.set(`/contacts/${i}/${k}`, `line ${line}, columns ${cols.map((n) => col(n) + 1).join("–")} (${cols.join(", ")})`);
+      where.set(`/contacts/${i}/${k}`, `line ${line}, columns ${col(cols[0]) + 1}–${col(cols[2]) + 1} (${cols.join(", ")})`);
       cols.forEach((n, j) => where.set(`/contacts/${i}/${k}/${j}`, loc(n)));
     }
   });

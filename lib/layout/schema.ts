@@ -12,6 +12,11 @@ const identifier = z
   .min(1, { error: "must not be empty" })
   .max(100, { error: "is longer than 100 characters" })
   .regex(/^[^\s\u0000-\u001f]+$/, { error: "must not contain spaces or control characters" });
+const label = z
+  .string({ error: "must be text" })
+  .min(1, { error: "must not be empty" })
+  .max(200, { error: "is longer than 200 characters" })
+  .regex(/^[^\u0000-\u001f]+$/, { error: "must not contain control characters" });
 const radius = z.union([finite.refine((v) => v !== 0, { error: "a radius of zero is not allowed (use null for flat)" }), z.null()]);
 
 const bodySchema = z.object({
@@ -39,7 +44,7 @@ const contactSchema = z.object({
   id: identifier,
   body: identifier,
   on: identifier.default(GROUND),
-  feature: identifier.optional(),
+  feature: label.optional(),
   point: vec3,
   normal: vec3,
   sense: z.enum(["unilateral", "bilateral"], { error: "must be unilateral or bilateral" }).default("unilateral"),
@@ -85,8 +90,17 @@ export function pointer(path: readonly PropertyKey[]): string {
   return path.length === 0 ? "/" : "/" + path.map((p) => String(p).replace(/~/g, "~0").replace(/\//g, "~1")).join("/");
 }
 
-function describeIssue(issue: z.core.$ZodIssue): string {
-  if (issue.code === "invalid_type" && (issue as { input?: unknown }).input === undefined) return "is required";
+function valueAt(raw: unknown, path: readonly PropertyKey[]): unknown {
+  let v: unknown = raw;
+  for (const key of path) {
+    if (v === null || typeof v !== "object") return undefined;
+    v = (v as Record<PropertyKey, unknown>)[key];
+  }
+  return v;
+}
+
+function describeIssue(issue: z.core.$ZodIssue, raw: unknown): string {
+  if (issue.code === "invalid_type" && valueAt(raw, issue.path) === undefined) return "is required";
   if (issue.code === "unrecognized_keys") return issue.message;
   return issue.message;
 }
@@ -101,7 +115,7 @@ export function validateRaw(raw: unknown, locate: (ptr: string) => string = (p) 
     const errors = parsed.error.issues.slice(0, 200).map((issue) => {
       const ptr = pointer(issue.path);
       const field = issue.path.length ? String(issue.path[issue.path.length - 1]) : "file";
-      return { location: locate(ptr), message: `${field} ${describeIssue(issue)}` };
+      return { location: locate(ptr), message: `${field} ${describeIssue(issue, raw)}` };
     });
     return { ok: false, errors };
   }
