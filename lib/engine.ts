@@ -1,6 +1,6 @@
 /** The whole check of one layout: analysis + rules → the machine-readable report of analysis.md §8. */
 import type { Layout, Vec3 } from "@/lib/layout/model";
-import { analyseLayout, type EngineAnalysis, type Motion } from "@/lib/analysis";
+import { analyseLayout, type CouplingResult, type EngineAnalysis, type HertzEntry, type Motion, type PointMotion, type SeatingResult } from "@/lib/analysis";
 import { runRules, type RuleOverride } from "@/rules";
 import type { Finding } from "@/rules/types";
 
@@ -9,20 +9,7 @@ export interface ReportMotion {
   screws: Motion["screws"];
 }
 
-export interface SeatingReport {
-  forces: Record<string, number> | null;
-  liftOff: string[];
-  stiffness: "file" | "hertz" | "equal" | "none";
-  margin: number | null;
-}
-
-export interface HertzEntry {
-  semiMajor: number;
-  semiMinor: number;
-  maxPressureMPa: number;
-  approachUm: number;
-  stiffness: number;
-}
+export type SeatingReport = SeatingResult;
 
 export interface Report {
   layout: string;
@@ -36,8 +23,15 @@ export interface Report {
   selfStress: { pivot: string; forces: Record<string, number> }[];
   seating: SeatingReport | null;
   hertz: Record<string, HertzEntry>;
-  foundation: { sensitivity: Record<string, Record<string, number>>; maxPerMicrometre: number } | null;
-  loadCases: { id: string; seating: SeatingReport | null; hertz: Record<string, HertzEntry> }[];
+  foundation: {
+    sensitivity: Record<string, Record<string, number>>;
+    maxPerMicrometre: number;
+    warp: { pivot: string; forces: Record<string, number> }[];
+    stiffness: string;
+  } | null;
+  loadCases: { id: string; gravity: Vec3; seating: SeatingReport | null; hertz: Record<string, HertzEntry>; unloaded: string[] }[];
+  points: Record<string, PointMotion>;
+  couplings: CouplingResult[];
   findings: Finding[];
 }
 
@@ -46,6 +40,7 @@ const motion = (m: Motion): ReportMotion => ({ twist: m.twist, screws: m.screws 
 /** Builds the report from an analysis and its findings. */
 export function buildReport(analysis: EngineAnalysis, findings: Finding[]): Report {
   const c = analysis.constraint;
+  const st = analysis.statics;
   return {
     layout: analysis.layout.name,
     units: analysis.layout.units,
@@ -56,10 +51,12 @@ export function buildReport(analysis: EngineAnalysis, findings: Finding[]): Repo
     freeMotions: c.freeMotions.map(motion),
     selfStressDimension: c.selfStressDimension,
     selfStress: c.selfStress,
-    seating: null,
-    hertz: {},
-    foundation: null,
-    loadCases: [],
+    seating: st.cases[0]?.seating ?? null,
+    hertz: st.cases[0]?.hertz ?? {},
+    foundation: st.foundation,
+    loadCases: st.cases.map((k) => ({ id: k.id, gravity: k.gravity, seating: k.seating, hertz: k.hertz, unloaded: k.unloaded })),
+    points: st.points,
+    couplings: analysis.couplings,
     findings,
   };
 }

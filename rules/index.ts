@@ -1,14 +1,34 @@
 /** The rule registry (alphabetical) and the runner that turns an analysis into findings. */
+import contactOverstress from "./contact-overstress";
 import countMismatch from "./count-mismatch";
+import couplingGeometry from "./coupling-geometry";
+import foundationCoupling from "./foundation-coupling";
 import freeMotion from "./free-motion";
+import functionalPointSensitivity from "./functional-point-sensitivity";
+import loadDrivesFreedom from "./load-drives-freedom";
+import lowSeatingMargin from "./low-seating-margin";
 import missingData from "./missing-data";
 import redundantConstraint from "./redundant-constraint";
+import seatLiftOff from "./seat-lift-off";
 import weakConstraint from "./weak-constraint";
 import { CAUTION, needsCaution } from "./describe";
 import { fingerprintOf, type Finding, type Rule, type Severity } from "./types";
 import type { EngineAnalysis } from "@/lib/analysis";
 
-export const rules: Rule<any>[] = [countMismatch, freeMotion, missingData, redundantConstraint, weakConstraint]; // eslint-disable-line @typescript-eslint/no-explicit-any
+export const rules: Rule<any>[] = [
+  contactOverstress,
+  countMismatch,
+  couplingGeometry,
+  foundationCoupling,
+  freeMotion,
+  functionalPointSensitivity,
+  loadDrivesFreedom,
+  lowSeatingMargin,
+  missingData,
+  redundantConstraint,
+  seatLiftOff,
+  weakConstraint,
+]; // eslint-disable-line @typescript-eslint/no-explicit-any
 
 export interface RuleOverride {
   severity?: Severity;

@@ -1,15 +1,22 @@
 /** The engine's analysis of a validated layout (pure, no I/O). */
 import type { Layout } from "@/lib/layout/model";
 import { analyseConstraint, type ConstraintAnalysis } from "./constraint";
+import { analyseStatics, type StaticsResult } from "./statics";
+import { analyseCouplings, type CouplingResult } from "./coupling";
 
 export type { ConstraintAnalysis, Motion, Screw, SelfStressState } from "./constraint";
+export type { StaticsResult, CaseResult, HertzEntry, SeatingResult, FoundationResult, PointMotion, StiffnessSource } from "./statics";
+export type { CouplingResult } from "./coupling";
 
 export interface EngineAnalysis {
   layout: Layout;
   constraint: ConstraintAnalysis;
+  statics: StaticsResult;
+  couplings: CouplingResult[];
 }
 
-/** Analyses a layout: rank, freedoms, redundancies, screws, self-stress, conditioning. */
+/** Analyses a layout: rank, screws, self-stress, seating per load case, foundation coupling, Hertz, couplings. */
 export function analyseLayout(layout: Layout): EngineAnalysis {
-  return { layout, constraint: analyseConstraint(layout) };
+  const constraint = analyseConstraint(layout);
+  return { layout, constraint, statics: analyseStatics(layout, constraint), couplings: analyseCouplings(layout) };
 }
