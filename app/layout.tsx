@@ -1,6 +1,7 @@
 /** Root layout: shipped fonts, design tokens, client providers. */
 import type { Metadata } from "next";
 import localFont from "next/font/local";
+import "katex/dist/katex.min.css";
 import "./globals.css";
 import { Providers } from "@/components/providers";
 

@@ -20,7 +20,7 @@ ensure_secret() {
 
 build_app() {
   echo "[setup] next build" >&2
-  (cd "$ROOT" && node_modules/.bin/next build >"$ROOT/.data/next-build.log" 2>&1) || {
+  (cd "$ROOT" && node scripts/build-worker.mjs && node_modules/.bin/next build >"$ROOT/.data/next-build.log" 2>&1) || {
     tail -40 "$ROOT/.data/next-build.log" >&2
     echo "[setup] next build failed; full log in .data/next-build.log" >&2
     return 1

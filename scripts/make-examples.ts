@@ -154,6 +154,18 @@ const stage = base("Larkspur two-blade flexure stage", {
   points: [{ id: "probe-tip", body: "carriage", point: v(50, 0, 45) }],
 });
 
+// 5b. The same stage with both blades full width: one redundant constraint (rotation about y held twice)
+const fullBlades = base("Larkspur two-blade flexure stage, both blades full width", {
+  intendedFreedoms: 1,
+  bodies: [carriage],
+  contacts: [
+    ...stage.contacts.filter((c) => c.id !== "B-z"),
+    { id: "B-z1", body: "carriage", on: "ground", feature: "blade-B", point: v(100, -30, 0), normal: v(0, 0, 1), sense: "bilateral" },
+    { id: "B-z2", body: "carriage", on: "ground", feature: "blade-B", point: v(100, 30, 0), normal: v(0, 0, 1), sense: "bilateral" },
+  ],
+  points: stage.points,
+});
+
 // 6. Detector carriage on six pads: four vertical, two sideways → rank 5, one free and one redundant; 6N − m = 0
 const sled = { id: "detector-sled", mass: 3.0, centerOfMass: v(80, 40, 15) };
 const hidden = base("Larkspur detector sled on six pads (count reads zero)", {
@@ -174,6 +186,7 @@ const all: [string, Layout][] = [
   ["instrument-plate-socket-vee-flat", kelvin],
   ["mirror-cell-three-vee", threeVee],
   ["flexure-stage-one-freedom", stage],
+  ["flexure-stage-full-blades", fullBlades],
   ["detector-sled-hidden-count", hidden],
 ];
 

@@ -10,8 +10,8 @@ export NEXTAUTH_URL=${NEXTAUTH_URL:-http://localhost:$PORT}
 ensure_node_modules
 ensure_secret
 bash scripts/db.sh up demo "$DB_PORT"
-node_modules/.bin/tsx scripts/migrate.ts latest
-node_modules/.bin/tsx scripts/migrate.ts seed
+node_modules/.bin/tsx --conditions=react-server scripts/migrate.ts latest
+node_modules/.bin/tsx --conditions=react-server scripts/migrate.ts seed
 build_app
 
 cleanup() {

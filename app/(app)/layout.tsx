@@ -18,6 +18,7 @@ export default async function AppLayout({ children }: { children: React.ReactNod
           </Link>
           <nav className="flex gap-4 text-sm">
             <Link href="/projects">Projects</Link>
+            <Link href="/help/format">Exchange format</Link>
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
             <span data-testid="whoami">

@@ -52,7 +52,7 @@ export function ProjectsView({ canCreate, checkers }: { canCreate: boolean; chec
           <ul className="grid gap-3 md:grid-cols-2" data-testid="project-list">
             {query.data.projects.map((p) => (
               <li key={p.id} className="sheet p-4">
-                <div className="font-medium">{p.name}</div>
+                <a href={`/projects/${p.id}`} className="font-medium">{p.name}</a>
                 {p.description && <p className="mt-1 text-sm text-graphite-soft">{p.description}</p>}
                 <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-3 text-xs text-graphite-soft">
                   <dt>Checker</dt>

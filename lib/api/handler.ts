@@ -41,3 +41,13 @@ export async function jsonBody(req: Request): Promise<unknown> {
     throw invalid("The request body is not valid JSON.");
   }
 }
+
+const idSchema = z.coerce.number({ error: "must be a number" }).int().positive().max(2147483647);
+
+/** Reads a numeric id from route params, or throws 404 (an unparseable id names nothing). */
+export async function idFrom(params: Promise<Record<string, string>>, key: string): Promise<number> {
+  const raw = (await params)[key];
+  const parsed = idSchema.safeParse(raw);
+  if (!parsed.success) throw new AppError(404, "Nothing was found at that address.");
+  return parsed.data;
+}

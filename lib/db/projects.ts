@@ -2,7 +2,7 @@
 import "server-only";
 import { z } from "zod";
 import { db } from "./knex";
-import { conflict, forbidden, invalid } from "@/lib/errors";
+import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
 import type { SessionUser } from "@/lib/auth/session";
 
 interface ProjectRow {
@@ -72,5 +72,12 @@ export async function createProject(user: SessionUser, input: ProjectInput): Pro
     checker_id: input.checkerId ?? null,
   });
   const row = await baseQuery().where("p.id", id).first();
+  return toDto(row as ProjectRow);
+}
+
+/** One project. */
+export async function getProject(_user: SessionUser, id: number): Promise<ProjectDto> {
+  const row = await baseQuery().where("p.id", id).first();
+  if (!row) throw notFound("That project");
   return toDto(row as ProjectRow);
 }

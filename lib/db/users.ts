@@ -46,3 +46,9 @@ export async function listUsersByRole(role: Role): Promise<UserDto[]> {
   const rows = await db()<UserRow>("users").where({ role, active: true }).orderBy("name");
   return rows.map(toDto);
 }
+
+/** People who can be @mentioned: name and handle (the part of the e-mail before the @). */
+export async function listMentionableUsers(): Promise<{ name: string; handle: string; role: Role }[]> {
+  const rows = await db()<UserRow>("users").where({ active: true }).orderBy("name");
+  return rows.map((r) => ({ name: r.name, handle: r.email.split("@")[0], role: r.role }));
+}

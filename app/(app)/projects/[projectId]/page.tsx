@@ -1,0 +1,13 @@
+/** A project: its layouts and their review state; designers add layouts. */
+import type { Metadata } from "next";
+import { requirePageUser } from "@/lib/auth/session";
+import { allowed } from "@/lib/policy";
+import { ProjectView } from "@/components/projects/project-view";
+
+export const metadata: Metadata = { title: "Project" };
+
+export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
+  const { projectId } = await params;
+  const user = await requirePageUser(`/projects/${projectId}`);
+  return <ProjectView projectId={Number(projectId)} canCreate={allowed(user.role, "createLayout")} />;
+}

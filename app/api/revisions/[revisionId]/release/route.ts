@@ -1,0 +1,25 @@
+/** POST {action: "request"} (designer) or {action: "approve"} (checker): release of a revision. */
+import { z } from "zod";
+import { requireRole } from "@/lib/auth/session";
+import { handle, idFrom, jsonBody, parseWith } from "@/lib/api/handler";
+import { approveRelease, requestRelease } from "@/lib/db/releases";
+import { forbidden } from "@/lib/errors";
+import { allowed } from "@/lib/policy";
+import { releaseReportMarkdown } from "@/lib/report/markdown";
+
+export const dynamic = "force-dynamic";
+const bodySchema = z.object({ action: z.enum(["request", "approve"]) });
+
+export const POST = handle(async (req: Request, ctx: { params: Promise<{ revisionId: string }> }) => {
+  const user = await requireRole(["designer", "checker"]);
+  const id = await idFrom(ctx.params, "revisionId");
+  const { action } = parseWith(bodySchema, await jsonBody(req));
+  if (action === "request") {
+    if (!allowed(user.role, "requestRelease")) throw forbidden("Only designers request a release.");
+    await requestRelease(user, id);
+    return Response.json({ ok: true, status: "requested" }, { status: 201 });
+  }
+  if (!allowed(user.role, "approveRelease")) throw forbidden("Only checkers approve a release.");
+  await approveRelease(user, id, (rid) => releaseReportMarkdown(user, rid));
+  return Response.json({ ok: true, status: "released" }, { status: 200 });
+});

@@ -1,0 +1,43 @@
+"use client";
+/** Revision diff: contacts added, removed and moved; findings new, resolved and unchanged. */
+import Link from "next/link";
+import { useQuery } from "@tanstack/react-query";
+import { fetchJson } from "@/components/ui/fetch-json";
+import { SeverityBadge } from "@/components/review/badges";
+
+interface Diff {
+  from: number;
+  to: number;
+  contacts: { added: string[]; removed: string[]; moved: { id: string; from: number[]; to: number[]; normalChanged: boolean }[] };
+  findings: Record<"new" | "resolved" | "unchanged", { threadId: number; title: string; severity: string }[]>;
+}
+
+export function RevisionDiffView({ revisionId, against }: { revisionId: number; against: number }) {
+  const q = useQuery({ queryKey: ["diff", revisionId, against], queryFn: () => fetchJson<{ diff: Diff }>(`/api/revisions/${revisionId}/diff?against=${against}`) });
+  if (q.isPending) return <p role="status" className="text-sm text-graphite-soft">Comparing…</p>;
+  if (q.isError) return <p role="alert" className="text-sm text-severity-error">{(q.error as Error).message}</p>;
+  const d = q.data.diff;
+  return (
+    <div className="grid gap-3 md:grid-cols-2" data-testid="revision-diff">
+      <div className="sheet p-3 text-sm">
+        <h3 className="mb-2 font-semibold">Contacts (r{d.from} → r{d.to})</h3>
+        <p>Added: {d.contacts.added.length ? d.contacts.added.join(", ") : "none"}</p>
+        <p>Removed: {d.contacts.removed.length ? d.contacts.removed.join(", ") : "none"}</p>
+        <p>Moved: {d.contacts.moved.length ? d.contacts.moved.map((m) => `${m.id}${m.normalChanged ? " (normal turned)" : ""}`).join(", ") : "none"}</p>
+      </div>
+      <div className="sheet p-3 text-sm">
+        <h3 className="mb-2 font-semibold">Findings</h3>
+        {(["new", "resolved", "unchanged"] as const).map((k) => (
+          <div key={k} className="mb-1">
+            <span className="font-medium">{k}:</span> {d.findings[k].length === 0 && "none"}
+            <ul className="ml-4">
+              {d.findings[k].map((f) => (
+                <li key={f.threadId}><SeverityBadge severity={f.severity} /> <Link href={`/findings/${f.threadId}`}>{f.title}</Link></li>
+              ))}
+            </ul>
+          </div>
+        ))}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,30 @@
+"use client";
+/**
+ * Renders user and finding markdown: GFM tables and lists, code, math (KaTeX). Sanitised with
+ * rehype-sanitize before KaTeX runs, so raw HTML, scripts, event handlers and javascript: links are inert.
+ */
+import ReactMarkdown from "react-markdown";
+import remarkGfm from "remark-gfm";
+import remarkMath from "remark-math";
+import rehypeKatex from "rehype-katex";
+import rehypeSanitize, { defaultSchema } from "rehype-sanitize";
+
+const schema = {
+  ...defaultSchema,
+  attributes: {
+    ...defaultSchema.attributes,
+    code: [...(defaultSchema.attributes?.code ?? []), ["className", /^language-./, "math-inline", "math-display"]],
+    span: [...(defaultSchema.attributes?.span ?? []), ["className", "math-inline", "math-display"]],
+    div: [...(defaultSchema.attributes?.div ?? []), ["className", "math-display"]],
+  },
+};
+
+export function MarkdownView({ source, className = "" }: { source: string; className?: string }) {
+  return (
+    <div className={`markdown ${className}`}>
+      <ReactMarkdown remarkPlugins={[remarkGfm, remarkMath]} rehypePlugins={[[rehypeSanitize, schema], rehypeKatex]}>
+        {source}
+      </ReactMarkdown>
+    </div>
+  );
+}

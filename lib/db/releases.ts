@@ -1,0 +1,56 @@
+/** Release of a revision: a designer requests it, a checker approves when no error finding is open. */
+import "server-only";
+import { db } from "./knex";
+import { recordEvent } from "./events";
+import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
+import { allowed } from "@/lib/policy";
+import type { SessionUser } from "@/lib/auth/session";
+
+/** Error-severity threads that are open or reopened and appear in the revision (they block release). */
+export async function blockingFindings(revisionId: number): Promise<{ threadId: number; title: string }[]> {
+  const rows = await db()("findings as f")
+    .join("threads as t", "t.id", "f.thread_id")
+    .where("f.revision_id", revisionId)
+    .where("f.severity", "error")
+    .whereIn("t.status", ["open", "reopened"])
+    .select("t.id", "t.title");
+  return rows.map((r: { id: number; title: string }) => ({ threadId: r.id, title: r.title }));
+}
+
+async function latestOf(layoutId: number) {
+  return db()("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first();
+}
+
+/** A designer asks for release of the newest revision. */
+export async function requestRelease(user: SessionUser, revisionId: number): Promise<void> {
+  if (!allowed(user.role, "requestRelease")) throw forbidden("Only designers request a release.");
+  const rev = await db()("revisions").where({ id: revisionId }).first();
+  if (!rev) throw notFound("That revision");
+  const latest = await latestOf(rev.layout_id);
+  if (latest.id !== rev.id) throw conflict(`Only the newest revision (${latest.number}) can be released.`);
+  if (await db()("releases").where({ revision_id: revisionId }).first()) throw conflict("Release of this revision is already requested.");
+  await db().transaction(async (trx) => {
+    await trx("releases").insert({ revision_id: revisionId, requested_by: user.id });
+    await recordEvent(trx, { layoutId: rev.layout_id, kind: "release-request", actorId: user.id, revisionId, detail: { number: rev.number } });
+  });
+}
+
+/** A checker approves a requested release when no error finding is open. */
+export async function approveRelease(user: SessionUser, revisionId: number, reportMarkdown?: (revisionId: number) => Promise<string>): Promise<void> {
+  if (!allowed(user.role, "approveRelease")) throw forbidden("Only checkers approve a release.");
+  const rev = await db()("revisions").where({ id: revisionId }).first();
+  if (!rev) throw notFound("That revision");
+  const req = await db()("releases").where({ revision_id: revisionId }).first();
+  if (!req) throw conflict("No release has been requested for this revision.");
+  if (req.approved_at) throw conflict("This revision is already released.");
+  const latest = await latestOf(rev.layout_id);
+  if (latest.id !== rev.id) throw conflict(`A newer revision (${latest.number}) exists; release that one instead.`);
+  const blocking = await blockingFindings(revisionId);
+  if (blocking.length) throw new AppError(409, `${blocking.length} error finding${blocking.length === 1 ? " is" : "s are"} still open: ${blocking.map((b) => b.title).join("; ")}`, { blocking });
+  const md = reportMarkdown ? await reportMarkdown(revisionId) : null;
+  await db().transaction(async (trx) => {
+    const n = await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").update({ approved_by: user.id, approved_at: trx.fn.now(3), report_md: md });
+    if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
+    await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });
+  });
+}

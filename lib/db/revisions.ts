@@ -1,0 +1,231 @@
+/**
+ * Revisions: stored in one transaction with their findings, carrying threads over by fingerprint
+ * (same fingerprint keeps its thread, a vanished one resolves, a reappearing one reopens).
+ */
+import "server-only";
+import { db } from "./knex";
+import { recordEvent } from "./events";
+import { forbidden, notFound } from "@/lib/errors";
+import { allowed } from "@/lib/policy";
+import type { SessionUser } from "@/lib/auth/session";
+import type { Encoding, Layout, LayoutError } from "@/lib/layout/model";
+import type { Report } from "@/lib/engine";
+
+export interface RevisionSummaryDto {
+  id: number;
+  layoutId: number;
+  number: number;
+  encoding: Encoding;
+  fileName: string;
+  counts: { bodies: number; contacts: number; rank: number; freedoms: number; redundancies: number };
+  conditioning: number;
+  uploadedBy: string;
+  createdAt: string;
+  release: { requestedBy: string; requestedAt: string; approvedBy: string | null; approvedAt: string | null } | null;
+}
+
+export interface RevisionDto extends RevisionSummaryDto {
+  report: Report;
+  layout: Layout;
+  findings: FindingRowDto[];
+}
+
+export interface FindingRowDto {
+  id: number;
+  threadId: number;
+  rule: string;
+  severity: "error" | "warning" | "info";
+  title: string;
+  body: string;
+  contacts: string[];
+  loadCase: string | null;
+  status: "open" | "waived" | "resolved" | "reopened";
+  comments: number;
+}
+
+type Row = Record<string, unknown>;
+
+function toSummary(r: Row): RevisionSummaryDto {
+  return {
+    id: r.id as number,
+    layoutId: r.layout_id as number,
+    number: r.number as number,
+    encoding: r.encoding as Encoding,
+    fileName: r.file_name as string,
+    counts: { bodies: r.bodies as number, contacts: r.contacts as number, rank: r.rank_ as number, freedoms: r.freedoms as number, redundancies: r.redundancies as number },
+    conditioning: r.conditioning as number,
+    uploadedBy: r.uploader as string,
+    createdAt: new Date(r.created_at as string).toISOString(),
+    release: r.requested_at
+      ? {
+          requestedBy: r.requester as string,
+          requestedAt: new Date(r.requested_at as string).toISOString(),
+          approvedBy: (r.approver as string | null) ?? null,
+          approvedAt: r.approved_at ? new Date(r.approved_at as string).toISOString() : null,
+        }
+      : null,
+  };
+}
+
+function revisionQuery() {
+  return db()("revisions as v")
+    .join("users as u", "u.id", "v.uploaded_by")
+    .leftJoin("releases as r", "r.revision_id", "v.id")
+    .leftJoin("users as rq", "rq.id", "r.requested_by")
+    .leftJoin("users as ap", "ap.id", "r.approved_by")
+    .select("v.id", "v.layout_id", "v.number", "v.encoding", "v.file_name", "v.bodies", "v.contacts", "v.rank_", "v.freedoms", "v.redundancies", "v.conditioning", "v.created_at", "u.name as uploader", "r.requested_at", "r.approved_at", "rq.name as requester", "ap.name as approver");
+}
+
+/** Revisions of a layout, oldest first. */
+export async function listRevisions(_user: SessionUser, layoutId: number): Promise<RevisionSummaryDto[]> {
+  const rows = await revisionQuery().where("v.layout_id", layoutId).orderBy("v.number", "asc");
+  return rows.map(toSummary);
+}
+
+/** One revision with its report, parsed layout and findings (with the thread status now). */
+export async function getRevision(_user: SessionUser, revisionId: number): Promise<RevisionDto> {
+  const row = await revisionQuery().select("v.report", "v.parsed").where("v.id", revisionId).first();
+  if (!row) throw notFound("That revision");
+  const findings = await db()("findings as f")
+    .join("threads as t", "t.id", "f.thread_id")
+    .where("f.revision_id", revisionId)
+    .select("f.*", "t.status", db().raw("(select count(*) from comments c where c.thread_id = t.id) as comment_count"))
+    .orderBy("f.id", "asc");
+  return {
+    ...toSummary(row),
+    report: JSON.parse(row.report),
+    layout: JSON.parse(row.parsed),
+    findings: findings.map((f: Row) => ({
+      id: f.id as number,
+      threadId: f.thread_id as number,
+      rule: f.rule as string,
+      severity: f.severity as FindingRowDto["severity"],
+      title: f.title as string,
+      body: f.body as string,
+      contacts: JSON.parse(f.contacts as string),
+      loadCase: (f.load_case as string | null) ?? null,
+      status: f.status as FindingRowDto["status"],
+      comments: Number(f.comment_count),
+    })),
+  };
+}
+
+/** Records a refused upload (nothing else is stored). */
+export async function recordRefusedUpload(user: SessionUser, layoutId: number, fileName: string, size: number, errors: LayoutError[]): Promise<void> {
+  await db().transaction(async (trx) => {
+    await trx("upload_attempts").insert({ layout_id: layoutId, user_id: user.id, file_name: fileName.slice(0, 255), size_bytes: size, accepted: false, errors: JSON.stringify(errors.slice(0, 200)) });
+    await recordEvent(trx, { layoutId, kind: "upload-refused", actorId: user.id, detail: { fileName, errors: errors.length } });
+  });
+}
+
+export interface StoreInput {
+  fileName: string;
+  encoding: Encoding;
+  raw: string;
+  layout: Layout;
+  report: Report;
+}
+
+/** Stores an analysed revision with its findings in one transaction and carries the threads over. */
+export async function storeRevision(user: SessionUser, layoutId: number, input: StoreInput): Promise<RevisionSummaryDto> {
+  if (!allowed(user.role, "uploadRevision")) throw forbidden("Only designers upload revisions.");
+  const id = await db().transaction(async (trx) => {
+    const layout = await trx("layouts").where({ id: layoutId }).forUpdate().first();
+    if (!layout) throw notFound("That layout");
+    const last = await trx("revisions").where({ layout_id: layoutId }).max({ n: "number" }).first();
+    const number = Number(last?.n ?? 0) + 1;
+    const c = input.report.counts;
+    const [revisionId] = await trx("revisions").insert({
+      layout_id: layoutId,
+      number,
+      encoding: input.encoding,
+      file_name: input.fileName.slice(0, 255),
+      raw: input.raw,
+      parsed: JSON.stringify(input.layout),
+      report: JSON.stringify(input.report),
+      bodies: c.bodies,
+      contacts: c.contacts,
+      rank_: c.rank,
+      freedoms: c.freedoms,
+      redundancies: c.redundancies,
+      conditioning: input.report.conditioning,
+      uploaded_by: user.id,
+    });
+    const threads: Row[] = await trx("threads").where({ layout_id: layoutId }).forUpdate();
+    const byFp = new Map(threads.map((t) => [t.fingerprint as string, t]));
+    const seen = new Set<number>();
+    for (const f of input.report.findings) {
+      let t = byFp.get(f.fingerprint);
+      if (!t) {
+        const [threadId] = await trx("threads").insert({ layout_id: layoutId, fingerprint: f.fingerprint, rule: f.rule, severity: f.severity, title: f.title.slice(0, 400), status: "open", last_revision_id: revisionId });
+        t = { id: threadId, status: "open" };
+        byFp.set(f.fingerprint, t);
+        await recordEvent(trx, { layoutId, kind: "open", actorId: null, threadId, revisionId, detail: { title: f.title } });
+      } else {
+        const reappeared = t.status === "resolved";
+        await trx("threads")
+          .where({ id: t.id })
+          .update({ severity: f.severity, title: f.title.slice(0, 400), last_revision_id: revisionId, ...(reappeared ? { status: "reopened", version: trx.raw("version + 1"), updated_at: trx.fn.now(3) } : {}) });
+        if (reappeared) await recordEvent(trx, { layoutId, kind: "reopen", actorId: null, threadId: t.id as number, revisionId, detail: { reason: `reappeared in revision ${number}` } });
+      }
+      seen.add(t.id as number);
+      await trx("findings").insert({
+        revision_id: revisionId,
+        thread_id: t.id,
+        rule: f.rule,
+        severity: f.severity,
+        title: f.title.slice(0, 400),
+        body: f.body,
+        contacts: JSON.stringify(f.contacts),
+        load_case: f.loadCase ?? null,
+      });
+    }
+    for (const t of threads) {
+      if (seen.has(t.id as number) || t.status === "resolved") continue;
+      await trx("threads").where({ id: t.id }).update({ status: "resolved", version: trx.raw("version + 1"), updated_at: trx.fn.now(3) });
+      await recordEvent(trx, { layoutId, kind: "resolve", actorId: null, threadId: t.id as number, revisionId, detail: { reason: `not found in revision ${number}` } });
+    }
+    await trx("upload_attempts").insert({ layout_id: layoutId, user_id: user.id, file_name: input.fileName.slice(0, 255), size_bytes: Buffer.byteLength(input.raw), accepted: true, revision_id: revisionId });
+    await recordEvent(trx, { layoutId, kind: "upload", actorId: user.id, revisionId, detail: { number, fileName: input.fileName, findings: input.report.findings.length } });
+    return revisionId as number;
+  });
+  const row = await revisionQuery().where("v.id", id).first();
+  return toSummary(row);
+}
+
+export interface RevisionDiff {
+  from: number;
+  to: number;
+  contacts: { added: string[]; removed: string[]; moved: { id: string; from: [number, number, number]; to: [number, number, number]; normalChanged: boolean }[] };
+  findings: { new: { threadId: number; title: string; severity: string }[]; resolved: { threadId: number; title: string; severity: string }[]; unchanged: { threadId: number; title: string; severity: string }[] };
+}
+
+/** What changed between two revisions of the same layout: contacts and findings. */
+export async function diffRevisions(user: SessionUser, fromId: number, toId: number): Promise<RevisionDiff> {
+  const [a, b] = await Promise.all([getRevision(user, fromId), getRevision(user, toId)]);
+  if (a.layoutId !== b.layoutId) throw notFound("Those revisions of one layout");
+  const ca = new Map(a.layout.contacts.map((c) => [c.id, c]));
+  const cb = new Map(b.layout.contacts.map((c) => [c.id, c]));
+  const moved: RevisionDiff["contacts"]["moved"] = [];
+  for (const [id, c] of cb) {
+    const o = ca.get(id);
+    if (!o) continue;
+    const pd = Math.hypot(...c.point.map((x, i) => x - o.point[i]));
+    const un = (v: number[]) => v.map((x) => x / Math.hypot(...v));
+    const nd = Math.hypot(...un(c.normal).map((x, i) => x - un(o.normal)[i]));
+    if (pd > 1e-9 * (1 + Math.hypot(...o.point)) || nd > 1e-9) moved.push({ id, from: o.point, to: c.point, normalChanged: nd > 1e-9 });
+  }
+  const fa = new Map(a.findings.map((f) => [f.threadId, f]));
+  const fb = new Map(b.findings.map((f) => [f.threadId, f]));
+  const brief = (f: FindingRowDto) => ({ threadId: f.threadId, title: f.title, severity: f.severity });
+  return {
+    from: a.number,
+    to: b.number,
+    contacts: { added: [...cb.keys()].filter((k) => !ca.has(k)), removed: [...ca.keys()].filter((k) => !cb.has(k)), moved },
+    findings: {
+      new: [...fb.values()].filter((f) => !fa.has(f.threadId)).map(brief),
+      resolved: [...fa.values()].filter((f) => !fb.has(f.threadId)).map(brief),
+      unchanged: [...fb.values()].filter((f) => fa.has(f.threadId)).map(brief),
+    },
+  };
+}

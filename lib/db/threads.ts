@@ -1,0 +1,172 @@
+/** Review threads: read one with its findings, comments and history; waive, reopen; comment and edit. */
+import "server-only";
+import { z } from "zod";
+import type { Knex } from "knex";
+import { db } from "./knex";
+import { listEvents, recordEvent, type EventDto } from "./events";
+import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
+import { allowed } from "@/lib/policy";
+import type { SessionUser } from "@/lib/auth/session";
+
+export type ThreadStatus = "open" | "waived" | "resolved" | "reopened";
+
+export interface CommentDto {
+  id: number;
+  author: { id: number; name: string; role: string };
+  body: string;
+  createdAt: string;
+  editedAt: string | null;
+  history: { body: string; replacedAt: string }[];
+  mine: boolean;
+}
+
+export interface ThreadDto {
+  id: number;
+  layoutId: number;
+  layoutName: string;
+  projectId: number;
+  projectName: string;
+  fingerprint: string;
+  rule: string;
+  severity: "error" | "warning" | "info";
+  title: string;
+  status: ThreadStatus;
+  waiverReason: string | null;
+  waivedBy: string | null;
+  version: number;
+  readOnly: boolean;
+  appearances: { revisionId: number; revisionNumber: number; findingId: number; body: string; contacts: string[]; loadCase: string | null }[];
+  comments: CommentDto[];
+  history: EventDto[];
+}
+
+export const commentSchema = z.object({ body: z.string().trim().min(1, "Write something first.").max(20000, "A comment is at most 20,000 characters.") });
+export const statusSchema = z.discriminatedUnion("action", [
+  z.object({ action: z.literal("waive"), reason: z.string().trim().min(10, "Give a justification of at least 10 characters.").max(4000), version: z.number().int().positive() }),
+  z.object({ action: z.literal("reopen"), reason: z.string().trim().max(4000).default(""), version: z.number().int().positive() }),
+]);
+
+type Row = Record<string, unknown>;
+
+/** True when the layout's newest revision has been released (then it is read-only). */
+async function latestReleased(trx: Knex | Knex.Transaction, layoutId: number): Promise<boolean> {
+  const latest = await trx("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first();
+  if (!latest) return false;
+  const rel = await trx("releases").where({ revision_id: latest.id }).whereNotNull("approved_at").first();
+  return !!rel;
+}
+
+/** One thread with everything its page shows. */
+export async function getThread(user: SessionUser, threadId: number): Promise<ThreadDto> {
+  const t: Row | undefined = await db()("threads as t")
+    .join("layouts as l", "l.id", "t.layout_id")
+    .join("projects as p", "p.id", "l.project_id")
+    .leftJoin("users as w", "w.id", "t.waived_by")
+    .where("t.id", threadId)
+    .select("t.*", "l.name as layout_name", "l.project_id", "p.name as project_name", "w.name as waiver_name")
+    .first();
+  if (!t) throw notFound("That finding");
+  const appearances = await db()("findings as f").join("revisions as v", "v.id", "f.revision_id").where("f.thread_id", threadId).select("f.*", "v.number").orderBy("v.number", "asc");
+  const comments: Row[] = await db()("comments as c").join("users as u", "u.id", "c.author_id").where("c.thread_id", threadId).select("c.*", "u.name", "u.role").orderBy("c.id", "asc");
+  const edits: Row[] = comments.length ? await db()("comment_edits").whereIn("comment_id", comments.map((c) => c.id as number)).orderBy("id", "asc") : [];
+  return {
+    id: t.id as number,
+    layoutId: t.layout_id as number,
+    layoutName: t.layout_name as string,
+    projectId: t.project_id as number,
+    projectName: t.project_name as string,
+    fingerprint: t.fingerprint as string,
+    rule: t.rule as string,
+    severity: t.severity as ThreadDto["severity"],
+    title: t.title as string,
+    status: t.status as ThreadStatus,
+    waiverReason: (t.waiver_reason as string | null) ?? null,
+    waivedBy: (t.waiver_name as string | null) ?? null,
+    version: t.version as number,
+    readOnly: await latestReleased(db(), t.layout_id as number),
+    appearances: appearances.map((f: Row) => ({ revisionId: f.revision_id as number, revisionNumber: f.number as number, findingId: f.id as number, body: f.body as string, contacts: JSON.parse(f.contacts as string), loadCase: (f.load_case as string | null) ?? null })),
+    comments: comments.map((c) => ({
+      id: c.id as number,
+      author: { id: c.author_id as number, name: c.name as string, role: c.role as string },
+      body: c.body as string,
+      createdAt: new Date(c.created_at as string).toISOString(),
+      editedAt: c.edited_at ? new Date(c.edited_at as string).toISOString() : null,
+      history: edits.filter((e) => e.comment_id === c.id).map((e) => ({ body: e.body as string, replacedAt: new Date(e.replaced_at as string).toISOString() })),
+      mine: c.author_id === user.id,
+    })),
+    history: await listEvents({ threadId }),
+  };
+}
+
+/** Waives (checker, with a justification) or reopens a thread; refuses a stale version with 409. */
+export async function changeStatus(user: SessionUser, threadId: number, input: z.infer<typeof statusSchema>): Promise<ThreadDto> {
+  if (!allowed(user.role, input.action)) throw forbidden(input.action === "waive" ? "Only checkers waive findings." : "Only checkers reopen findings.");
+  await db().transaction(async (trx) => {
+    const t = await trx("threads").where({ id: threadId }).forUpdate().first();
+    if (!t) throw notFound("That finding");
+    if (t.version !== input.version) throw conflict("Someone changed this finding while you were looking at it. Reload to see their change; nothing was overwritten.");
+    if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only. Upload a new revision to change the review.");
+    if (input.action === "waive") {
+      if (t.status === "resolved") throw new AppError(409, "A resolved finding needs no waiver.");
+      if (t.status === "waived") throw new AppError(409, "This finding is already waived.");
+      await trx("threads").where({ id: threadId }).update({ status: "waived", waiver_reason: input.reason, waived_by: user.id, version: t.version + 1, updated_at: trx.fn.now(3) });
+    } else {
+      if (t.status !== "waived" && t.status !== "resolved") throw new AppError(409, "Only a waived or resolved finding can be reopened.");
+      await trx("threads").where({ id: threadId }).update({ status: "reopened", waiver_reason: null, waived_by: null, version: t.version + 1, updated_at: trx.fn.now(3) });
+    }
+    await recordEvent(trx, { layoutId: t.layout_id, kind: input.action, actorId: user.id, threadId, detail: { reason: input.reason, from: t.status } });
+  });
+  return getThread(user, threadId);
+}
+
+/** Finds @mentions (the part of an e-mail address before the @, e.g. @chen) of known users. */
+export async function mentionedUsers(body: string): Promise<{ id: number; name: string; email: string }[]> {
+  const handles = [...new Set([...body.matchAll(/(^|[^\w@])@([a-z0-9._-]{2,40})/gi)].map((m) => m[2].toLowerCase()))];
+  if (!handles.length) return [];
+  const users: Row[] = await db()("users").where({ active: true }).select("id", "name", "email");
+  return users.filter((u) => handles.includes(String(u.email).split("@")[0].toLowerCase())).map((u) => ({ id: u.id as number, name: u.name as string, email: u.email as string }));
+}
+
+/** Adds a comment (designers and checkers); records mentions in the history. */
+export async function addComment(user: SessionUser, threadId: number, body: string): Promise<CommentDto> {
+  if (!allowed(user.role, "comment")) throw forbidden("Your role reads threads but does not comment.");
+  const mentions = await mentionedUsers(body);
+  const id = await db().transaction(async (trx) => {
+    const t = await trx("threads").where({ id: threadId }).first();
+    if (!t) throw notFound("That finding");
+    if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only. Upload a new revision to continue the review.");
+    const [commentId] = await trx("comments").insert({ thread_id: threadId, author_id: user.id, body });
+    await recordEvent(trx, { layoutId: t.layout_id, kind: "comment", actorId: user.id, threadId, detail: { commentId, mentions: mentions.map((m) => m.id) } });
+    return commentId as number;
+  });
+  const thread = await getThread(user, threadId);
+  return thread.comments.find((c) => c.id === id)!;
+}
+
+/** Edits one's own comment, keeping the earlier text in its history. */
+export async function editComment(user: SessionUser, commentId: number, body: string): Promise<CommentDto> {
+  const threadId = await db().transaction(async (trx) => {
+    const c = await trx("comments").where({ id: commentId }).forUpdate().first();
+    if (!c) throw notFound("That comment");
+    if (c.author_id !== user.id) throw forbidden("You can edit only your own comments.");
+    const t = await trx("threads").where({ id: c.thread_id }).first();
+    if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only.");
+    if (c.body === body) return c.thread_id as number;
+    await trx("comment_edits").insert({ comment_id: commentId, body: c.body });
+    await trx("comments").where({ id: commentId }).update({ body, edited_at: trx.fn.now(3) });
+    await recordEvent(trx, { layoutId: t.layout_id, kind: "comment-edit", actorId: user.id, threadId: c.thread_id, detail: { commentId } });
+    return c.thread_id as number;
+  });
+  const thread = await getThread(user, threadId);
+  return thread.comments.find((c) => c.id === commentId)!;
+}
+
+/** Threads of a layout with their current state (for the findings table). */
+export async function listThreads(_user: SessionUser, layoutId: number): Promise<{ id: number; rule: string; severity: string; title: string; status: ThreadStatus; comments: number; lastRevision: number | null; version: number }[]> {
+  const rows: Row[] = await db()("threads as t")
+    .leftJoin("revisions as v", "v.id", "t.last_revision_id")
+    .where("t.layout_id", layoutId)
+    .select("t.*", "v.number as last_number", db().raw("(select count(*) from comments c where c.thread_id = t.id) as comment_count"))
+    .orderBy("t.id", "asc");
+  return rows.map((r) => ({ id: r.id as number, rule: r.rule as string, severity: r.severity as string, title: r.title as string, status: r.status as ThreadStatus, comments: Number(r.comment_count), lastRevision: (r.last_number as number | null) ?? null, version: r.version as number }));
+}

@@ -1,0 +1,54 @@
+/** The release report in markdown: summary, findings with their numbers, waivers, release record, caution. */
+import "server-only";
+import { db } from "@/lib/db/knex";
+import { getRevision } from "@/lib/db/revisions";
+import type { SessionUser } from "@/lib/auth/session";
+import { num, vec } from "@/lib/analysis/format";
+import { unitLabel } from "@/lib/layout/units";
+import { CAUTION } from "@/rules/describe";
+
+/** Builds the markdown report of one revision (used at release and for download). */
+export async function releaseReportMarkdown(user: SessionUser, revisionId: number): Promise<string> {
+  const rev = await getRevision(user, revisionId);
+  const layout = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layoutId).select("l.name", "p.name as project").first();
+  const threads: { id: number; status: string; waiver_reason: string | null; waiver: string | null }[] = await db()("threads as t").leftJoin("users as u", "u.id", "t.waived_by").whereIn("t.id", rev.findings.map((f) => f.threadId)).select("t.id", "t.status", "t.waiver_reason", "u.name as waiver");
+  const byThread = new Map(threads.map((t) => [t.id, t]));
+  const r = rev.report;
+  const u = unitLabel(r.units.length);
+  const fu = unitLabel(r.units.force);
+  const lines: string[] = [];
+  lines.push(`# Release report — ${layout.name}, revision ${rev.number}`, "");
+  lines.push(`Project: ${layout.project}  `, `File: ${rev.fileName} (${rev.encoding.toUpperCase()}), uploaded by ${rev.uploadedBy} on ${rev.createdAt.slice(0, 10)}  `, `Layout: ${r.layout}`, "");
+  lines.push("## Summary", "", "| quantity | value |", "|---|---|");
+  lines.push(`| bodies | ${r.counts.bodies} |`, `| contacts | ${r.counts.contacts} |`, `| rank | ${r.counts.rank} |`, `| freedoms | ${r.counts.freedoms} |`, `| redundancies | ${r.counts.redundancies} |`);
+  lines.push(`| Grübler–Kutzbach 6N − m | ${r.counts.grubler} |`, `| conditioning σ_r/σ_max | ${num(r.conditioning)} |`, `| characteristic length | ${num(r.scaling.length)} ${u} |`, `| centroid | ${vec(r.scaling.centroid, u)} |`);
+  if (r.seating?.forces) lines.push(`| seating margin (first load case) | ${r.seating.margin === null ? "—" : num(r.seating.margin)} |`);
+  if (r.foundation) lines.push(`| foundation coupling | ${num(r.foundation.maxPerMicrometre)} ${fu} per µm |`);
+  lines.push("");
+  if (r.seating?.forces) {
+    lines.push("## Seated contact forces (first load case)", "", `| contact | force (${fu}) |`, "|---|---|");
+    for (const [k, v] of Object.entries(r.seating.forces)) lines.push(`| ${k} | ${num(v)} |`);
+    lines.push("");
+  }
+  lines.push(`## Findings (${rev.findings.length})`, "");
+  for (const f of rev.findings) {
+    const t = byThread.get(f.threadId);
+    lines.push(`### [${f.severity}] ${f.rule}: ${f.title}`, "", `Status: **${t?.status ?? f.status}**${f.loadCase ? ` · load case ${f.loadCase}` : ""}`, "");
+    if (t?.status === "waived") lines.push(`Waived by ${t.waiver ?? "a checker"}: ${t.waiver_reason}`, "");
+    lines.push(f.body.replace(/^#+ /gm, "**").trim(), "");
+  }
+  const waived = rev.findings.filter((f) => byThread.get(f.threadId)?.status === "waived");
+  lines.push("## Waivers", "");
+  if (!waived.length) lines.push("None.", "");
+  for (const f of waived) {
+    const t = byThread.get(f.threadId)!;
+    lines.push(`- **${f.title}** — ${t.waiver}: ${t.waiver_reason}`);
+  }
+  lines.push("", "## Release record", "");
+  if (rev.release) {
+    lines.push(`Requested by ${rev.release.requestedBy} on ${rev.release.requestedAt.slice(0, 16).replace("T", " ")} UTC.  `);
+    lines.push(rev.release.approvedBy ? `Approved by ${rev.release.approvedBy} on ${rev.release.approvedAt!.slice(0, 16).replace("T", " ")} UTC.` : `Approved by ${user.name} (${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC).`);
+  } else lines.push("Not released.");
+  lines.push("", CAUTION, "");
+  return lines.join("\n");
+}

@@ -1,0 +1,41 @@
+/** One upload path for the browser and the token API: size check, worker analysis, store or record the refusal. */
+import "server-only";
+import { z } from "zod";
+import { AppError, forbidden, notFound } from "@/lib/errors";
+import { allowed } from "@/lib/policy";
+import { MAX_FILE_BYTES, type Encoding } from "@/lib/layout/model";
+import { forceUnits, lengthUnits } from "@/lib/layout/units";
+import { analyseInWorker } from "@/lib/worker/run-analysis";
+import { recordRefusedUpload, storeRevision, type RevisionSummaryDto } from "@/lib/db/revisions";
+import { db } from "@/lib/db/knex";
+import type { SessionUser } from "@/lib/auth/session";
+import type { Report } from "@/lib/engine";
+
+export const uploadOptionsSchema = z.object({
+  fileName: z.string().trim().min(1).max(255).default("layout"),
+  encoding: z.enum(["json", "xml", "csv"]).optional(),
+  length: z.enum(lengthUnits).optional(),
+  force: z.enum(forceUnits).optional(),
+});
+
+export type UploadResult = { ok: true; revision: RevisionSummaryDto; report: Report } | { ok: false; errors: { location: string; message: string }[] };
+
+/** Validates, analyses (in a worker) and stores a revision, or records the refused attempt. */
+export async function uploadRevision(user: SessionUser, layoutId: number, bytes: Uint8Array, options: z.infer<typeof uploadOptionsSchema>): Promise<UploadResult> {
+  if (!allowed(user.role, "uploadRevision")) throw forbidden("Only designers upload revisions.");
+  const layout = await db()("layouts").where({ id: layoutId }).first();
+  if (!layout) throw notFound("That layout");
+  if (bytes.byteLength === 0) throw new AppError(422, "The file is empty.", { errors: [{ location: "file", message: "the file is empty" }] });
+  if (bytes.byteLength > MAX_FILE_BYTES) {
+    const errors = [{ location: "file", message: `the file is ${(bytes.byteLength / 1048576).toFixed(1)} MB; the limit is 5 MB` }];
+    await recordRefusedUpload(user, layoutId, options.fileName, bytes.byteLength, errors);
+    return { ok: false, errors };
+  }
+  const outcome = await analyseInWorker(bytes, { fileName: options.fileName, encoding: options.encoding as Encoding | undefined, length: options.length, force: options.force });
+  if (!outcome.ok) {
+    await recordRefusedUpload(user, layoutId, options.fileName, bytes.byteLength, outcome.errors);
+    return { ok: false, errors: outcome.errors };
+  }
+  const revision = await storeRevision(user, layoutId, { fileName: options.fileName, encoding: outcome.encoding, raw: outcome.text, layout: outcome.layout, report: outcome.report });
+  return { ok: true, revision, report: outcome.report };
+}

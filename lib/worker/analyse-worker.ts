@@ -1,0 +1,31 @@
+/** Worker thread: parses and analyses one layout file off the server's event loop. */
+import { parentPort } from "node:worker_threads";
+import { parseLayoutBytes, type Encoding } from "@/lib/layout";
+import { detectEncoding } from "@/lib/layout";
+import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
+import { runEngine } from "@/lib/engine";
+
+export interface WorkerRequest {
+  bytes: Uint8Array;
+  fileName: string;
+  encoding?: Encoding;
+  length?: LengthUnit;
+  force?: ForceUnit;
+}
+
+parentPort?.on("message", (req: WorkerRequest) => {
+  try {
+    const bytes = new Uint8Array(req.bytes);
+    const parsed = parseLayoutBytes(bytes, { fileName: req.fileName, encoding: req.encoding, length: req.length, force: req.force });
+    if (!parsed.ok) {
+      parentPort!.postMessage({ ok: false, errors: parsed.errors });
+      return;
+    }
+    const text = new TextDecoder().decode(bytes);
+    const encoding = req.encoding ?? detectEncoding(text, req.fileName);
+    const { report } = runEngine(parsed.layout);
+    parentPort!.postMessage({ ok: true, layout: parsed.layout, report, encoding, text });
+  } catch (err) {
+    parentPort!.postMessage({ ok: false, crashed: true, message: (err as Error).message });
+  }
+});
