@@ -26,7 +26,7 @@ export default defineRule({
         table.push(`| ${c} | ${f} | ${num(state.forces[c])} |`);
       }
       return {
-        title: `Over-constrained loop: ${state.pivot} fights ${others.join(", ") || "itself"}`,
+        title: `Over-constrained loop: ${state.pivot} fights ${others.length > 8 ? `${others.slice(0, 6).join(", ")} and ${others.length - 6} more` : others.join(", ") || "itself"}`,
         body: [
           `These contact forces (per unit force at the pivot ${state.pivot}) balance each other with no load, so a misfit or a deforming base locks them into the part.${selfStressDimension > selfStress.length ? ` (${selfStressDimension} states in all; the first ${selfStress.length} are listed.)` : ""}`,
           "",

@@ -135,7 +135,7 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
                 ["char. length", `${Number(rev.report.scaling.length.toPrecision(4))} ${L}`],
               ].map(([k, v]) => (
                 <div key={k as string}>
-                  <dt className="text-xs uppercase tracking-wider text-graphite-soft">{k}</dt>
+                  <dt className="text-xs tracking-wide text-graphite-soft">{k}</dt>
                   <dd className="num text-lg">{v}</dd>
                 </div>
               ))}

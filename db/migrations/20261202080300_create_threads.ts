@@ -5,7 +5,8 @@ export async function up(knex: Knex): Promise<void> {
   await knex.schema.createTable("threads", (t) => {
     t.increments("id").primary();
     t.integer("layout_id").unsigned().notNullable().references("layouts.id").onDelete("CASCADE");
-    t.string("fingerprint", 700).notNullable();
+    t.text("fingerprint").notNullable();
+    t.specificType("fingerprint_hash", "CHAR(64)").notNullable();
     t.string("rule", 60).notNullable();
     t.enu("severity", ["error", "warning", "info"]).notNullable();
     t.string("title", 400).notNullable();
@@ -17,8 +18,8 @@ export async function up(knex: Knex): Promise<void> {
     t.timestamp("opened_at", { precision: 3 }).notNullable().defaultTo(knex.fn.now(3));
     t.timestamp("updated_at", { precision: 3 }).notNullable().defaultTo(knex.fn.now(3));
     t.index(["layout_id", "status"]);
+    t.unique(["layout_id", "fingerprint_hash"]);
   });
-  await knex.raw("CREATE UNIQUE INDEX threads_layout_fingerprint ON threads (layout_id, fingerprint(500))");
 }
 
 export async function down(knex: Knex): Promise<void> {

@@ -3,6 +3,7 @@
  * (same fingerprint keeps its thread, a vanished one resolves, a reappearing one reopens).
  */
 import "server-only";
+import { createHash } from "node:crypto";
 import { db } from "./knex";
 import { recordEvent } from "./events";
 import { forbidden, notFound } from "@/lib/errors";
@@ -157,7 +158,7 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
     for (const f of input.report.findings) {
       let t = byFp.get(f.fingerprint);
       if (!t) {
-        const [threadId] = await trx("threads").insert({ layout_id: layoutId, fingerprint: f.fingerprint, rule: f.rule, severity: f.severity, title: f.title.slice(0, 400), status: "open", last_revision_id: revisionId });
+        const [threadId] = await trx("threads").insert({ layout_id: layoutId, fingerprint: f.fingerprint, fingerprint_hash: createHash("sha256").update(f.fingerprint).digest("hex"), rule: f.rule, severity: f.severity, title: f.title.slice(0, 400), status: "open", last_revision_id: revisionId });
         t = { id: threadId, status: "open" };
         byFp.set(f.fingerprint, t);
         await recordEvent(trx, { layoutId, kind: "open", actorId: null, threadId, revisionId, detail: { title: f.title } });

@@ -1,0 +1,79 @@
+/** The upload path: analysis in a worker thread (the event loop keeps ticking), refused files store nothing. */
+import { readFileSync } from "node:fs";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { resetDatabase, testKnex } from "./setup-db";
+import type { SessionUser } from "@/lib/auth/session";
+import { toJson } from "@/lib/layout/serialize";
+import type { Layout, Vec3 } from "@/lib/layout/model";
+import { rng } from "../support/layouts";
+
+const { uploadRevision } = await import("@/lib/upload");
+const { createLayout } = await import("@/lib/db/layouts");
+const { db } = await import("@/lib/db/knex");
+
+const knex = testKnex();
+let designer: SessionUser;
+let layoutId = 0;
+
+beforeAll(async () => {
+  await resetDatabase(knex);
+  designer = await knex("users").where({ role: "designer" }).first();
+  const project = await knex("projects").first();
+  layoutId = (await createLayout(designer, project.id, { name: "Worker bench", description: "" })).id;
+});
+afterAll(async () => {
+  await knex.destroy();
+  await db().destroy();
+});
+
+function bigChain(bodies: number): Layout {
+  const r = rng(3);
+  const contacts: Layout["contacts"] = [];
+  for (let b = 0; b < bodies; b++)
+    for (let k = 0; k < 6; k++)
+      contacts.push({ id: `c${b}-${k}`, body: `b${b}`, on: b === 0 ? "ground" : `b${b - 1}`, point: [b * 100 + r() * 50, r() * 50, r() * 50] as Vec3, normal: [r() - 0.5, r() - 0.5, r() - 0.5] as Vec3, sense: "unilateral" });
+  return { format: "mount-layout/1", name: "chain", units: { length: "mm", force: "N" }, gravity: [0, 0, -9.80665], tolerance: 1e-6, intendedFreedoms: 0, bodies: Array.from({ length: bodies }, (_, i) => ({ id: `b${i}` })), materials: [], contacts, loads: [], points: [] };
+}
+
+describe("uploadRevision", () => {
+  it("analyses in a worker thread: the main event loop keeps ticking during a large analysis", async () => {
+    const bytes = new TextEncoder().encode(toJson(bigChain(60)));
+    let ticks = 0;
+    const timer = setInterval(() => ticks++, 10);
+    const started = Date.now();
+    const result = await uploadRevision(designer, layoutId, bytes, { fileName: "chain.json" });
+    const elapsed = Date.now() - started;
+    clearInterval(timer);
+    expect(result.ok).toBe(true);
+    // a blocked loop would tick about once; a free one about every 10 ms of the analysis
+    expect(ticks).toBeGreaterThan(Math.min(5, elapsed / 40));
+    if (result.ok) expect(result.report.counts.bodies).toBe(60);
+  });
+
+  it("stores a good file as the next revision with its findings", async () => {
+    const result = await uploadRevision(designer, layoutId, new Uint8Array(readFileSync("examples/breadboard-four-feet.xml")), { fileName: "breadboard-four-feet.xml" });
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    expect(result.revision).toMatchObject({ number: 2, encoding: "xml" });
+    expect(await knex("findings").where({ revision_id: result.revision.id }).count({ n: "*" }).first()).toEqual({ n: result.report.findings.length });
+  });
+
+  it("refuses a bad file with located errors and stores nothing but the attempt", async () => {
+    const before = await knex("revisions").count({ n: "*" }).first();
+    const result = await uploadRevision(designer, layoutId, new TextEncoder().encode("id,x,y,z,nx,ny,nz\na,0,0,0,0,0,0\n"), { fileName: "bad.csv" });
+    expect(result).toEqual({ ok: false, errors: [{ location: "line 2, columns 5–7 (nx, ny, nz)", message: "normal has zero length" }] });
+    expect(await knex("revisions").count({ n: "*" }).first()).toEqual(before);
+    expect(await knex("upload_attempts").where({ accepted: false }).count({ n: "*" }).first()).toEqual({ n: 1 });
+  });
+
+  it("takes the CSV units given at upload", async () => {
+    const result = await uploadRevision(designer, layoutId, new Uint8Array(readFileSync("examples/mirror-cell-three-vee.csv")), { fileName: "cell.csv", length: "in", force: "lbf" });
+    expect(result.ok && result.report.units).toEqual({ length: "in", force: "lbf" });
+  });
+
+  it("refuses other roles (403) and an empty file (422)", async () => {
+    const checker = await knex("users").where({ role: "checker" }).first();
+    await expect(uploadRevision(checker, layoutId, new Uint8Array([1]), { fileName: "x.json" })).rejects.toMatchObject({ status: 403 });
+    await expect(uploadRevision(designer, layoutId, new Uint8Array(0), { fileName: "x.json" })).rejects.toMatchObject({ status: 422 });
+  });
+});
