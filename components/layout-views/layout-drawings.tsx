@@ -308,7 +308,7 @@ function OneView({ view, layout, report, emphasis, print, show, loopContacts, bo
               if (s.kind === "translation") {
                 if (len < 0.05) {
                   const [x, y] = px([ox, oy]);
-                  return (<g key={`${i}-${b}`} data-motion={i}><circle cx={x} cy={y} r={11} fill="none" stroke="#0f5b5c" strokeWidth={2} /><circle cx={x} cy={y} r={2.5} fill="#0f5b5c" /><text x={x + 13} y={y + 4} fontSize={10} fill="#0f5b5c">{label}</text></g>);
+                  return (<g key={`${i}-${b}`} data-motion={i} data-kind="translation"><circle cx={x} cy={y} r={11} fill="none" stroke="#0f5b5c" strokeWidth={2} /><circle cx={x} cy={y} r={2.5} fill="#0f5b5c" /><text x={x + 13} y={y + 4} fontSize={10} fill="#0f5b5c">{label}</text></g>);
                 }
                 const a = px([ox - (dx / len) * arrow * 1.2, oy - (dy / len) * arrow * 1.2]);
                 const z = px([ox + (dx / len) * arrow * 1.2, oy + (dy / len) * arrow * 1.2]);

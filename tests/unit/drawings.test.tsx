@@ -1,0 +1,67 @@
+/** The drawing component: the right number of contacts, normal arrows, motion axes, loops and forces for example layouts. */
+import { describe, expect, it } from "vitest";
+import { renderToStaticMarkup } from "react-dom/server";
+import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
+import { runEngine } from "@/lib/engine";
+import { example } from "../support/examples";
+
+const count = (html: string, attr: string) => (html.match(new RegExp(`${attr}="`, "g")) ?? []).length;
+
+function render(name: string, emphasis?: Parameters<typeof LayoutDrawings>[0]["emphasis"]) {
+  const layout = example(name);
+  const { report } = runEngine(layout);
+  return { html: renderToStaticMarkup(<LayoutDrawings layout={layout} report={report} emphasis={emphasis} />), layout, report };
+}
+
+describe("LayoutDrawings", () => {
+  it.each(["breadboard-four-feet", "breadboard-three-seats", "mirror-cell-three-vee", "instrument-plate-socket-vee-flat", "flexure-stage-one-freedom", "detector-sled-hidden-count", "flexure-stage-full-blades"])(
+    "%s: four views, every contact and its normal in each",
+    (name) => {
+      const { html, layout } = render(name);
+      expect(count(html, "data-view")).toBe(4);
+      expect(count(html, "data-contact")).toBe(4 * layout.contacts.length);
+      expect(count(html, "data-normal")).toBe(4 * layout.contacts.length);
+      expect(html).toContain('data-testid="scale-bar"');
+      expect(html).toMatch(/\d+ mm<\/text>/);
+    },
+  );
+
+  it("four feet: three free motions (two translations and a rotation) drawn in each view, four loop contacts", () => {
+    const { html } = render("breadboard-four-feet");
+    expect(count(html, "data-motion")).toBe(3 * 4);
+    // x and y translations in each view (seen end-on as a ringed dot where the view looks along them)
+    expect((html.match(/data-kind="translation"/g) ?? []).length).toBe(2 * 4);
+    expect((html.match(/data-kind="rotation"/g) ?? []).length).toBe(4);
+    expect(count(html, "data-loop-contact")).toBe(4 * 4);
+    expect(count(html, "data-force")).toBe(4 * 4);
+  });
+
+  it("three seats: no motion, no loop", () => {
+    const { html } = render("breadboard-three-seats");
+    expect(count(html, "data-motion")).toBe(0);
+    expect(count(html, "data-loop-contact")).toBe(0);
+  });
+
+  it("a finding's emphasis fades the other contacts and draws only its motions", () => {
+    const { html } = render("flexure-stage-full-blades", { contacts: ["A-z1", "A-z2", "B-z1", "B-z2"], motions: [] });
+    expect((html.match(/data-emphasised="true"/g) ?? []).length).toBe(16);
+    expect((html.match(/data-emphasised="false"/g) ?? []).length).toBe(8);
+    expect(count(html, "data-motion")).toBe(0);
+  });
+
+  it("lifted-off seats are marked in a load case that lifts them (first case shown)", () => {
+    const layout = example("instrument-plate-socket-vee-flat");
+    layout.loadCases = [{ id: "inverted", gravity: [0, 0, 9.80665], loads: ["nest-spring"] }];
+    const { report } = runEngine(layout);
+    const html = renderToStaticMarkup(<LayoutDrawings layout={layout} report={report} />);
+    expect(count(html, "data-lifted")).toBe(4 * report.seating!.liftOff.length);
+    expect(report.seating!.liftOff.length).toBeGreaterThan(0);
+  });
+
+  it("describes what is drawn in text for people who cannot see the drawing", () => {
+    const { html } = render("breadboard-four-feet");
+    expect(html).toContain("What is drawn");
+    expect(html).toMatch(/3 free motions drawn as screw axes/);
+    expect(html).toMatch(/1 over-constrained loop marked on contacts F1, F2, F3, F4/);
+  });
+});
