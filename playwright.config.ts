@@ -11,6 +11,8 @@ const env = {
   NEXTAUTH_URL: `http://localhost:${port}`,
   NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? "test-secret-not-for-production",
   NEXT_TELEMETRY_DISABLED: "1",
+  SMTP_PORT: process.env.SMTP_PORT ?? "2526",
+  MAIL_CAPTURE_FILE: process.env.MAIL_CAPTURE_FILE ?? ".data/mail/test-captured.jsonl",
 };
 Object.assign(process.env, env);
 

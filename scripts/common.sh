@@ -26,3 +26,21 @@ build_app() {
     return 1
   }
 }
+
+# Starts the local fake SMTP server in the background: start_mail_fake PORT CAPTURE_FILE (sets MAIL_PID)
+start_mail_fake() {
+  local port=$1 file=$2
+  mkdir -p "$(dirname "$file")"
+  (cd "$ROOT" && node_modules/.bin/tsx scripts/mail-fake.ts "$port" "$file" >"$ROOT/.data/mail-fake-$port.log" 2>&1) &
+  MAIL_PID=$!
+  for _ in $(seq 1 100); do
+    (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null && { echo "[mail] fake SMTP on 127.0.0.1:$port" >&2; return 0; }
+    sleep 0.1
+  done
+  echo "[mail] fake SMTP did not start; see .data/mail-fake-$port.log" >&2
+  return 1
+}
+
+stop_mail_fake() {
+  [ -n "${MAIL_PID:-}" ] && pkill -P "$MAIL_PID" 2>/dev/null; [ -n "${MAIL_PID:-}" ] && kill "$MAIL_PID" 2>/dev/null; true
+}

@@ -13,9 +13,12 @@ bash scripts/db.sh up demo "$DB_PORT"
 node_modules/.bin/tsx --conditions=react-server scripts/migrate.ts latest
 node_modules/.bin/tsx --conditions=react-server scripts/migrate.ts seed
 build_app
+export SMTP_PORT=${SMTP_PORT:-2525} MAIL_CAPTURE_FILE=${MAIL_CAPTURE_FILE:-$ROOT/.data/mail/captured.jsonl}
+start_mail_fake "$SMTP_PORT" "$MAIL_CAPTURE_FILE"
 
 cleanup() {
   [ -n "${APP_PID:-}" ] && kill "$APP_PID" 2>/dev/null || true
+  stop_mail_fake
   bash scripts/db.sh down demo "$DB_PORT" || true
 }
 trap cleanup EXIT INT TERM

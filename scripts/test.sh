@@ -7,17 +7,24 @@ export DB_PORT=3408 DB_USER=sixfold DB_PASSWORD=sixfold-test
 mkdir -p .data/results
 
 ensure_node_modules
-if [ ! -x /usr/bin/chromium ]; then
-  echo "[test] installing Debian chromium" >&2
-  apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium >/dev/null
+missing=""
+[ -x /usr/bin/chromium ] || missing="$missing chromium"
+command -v curl >/dev/null 2>&1 || missing="$missing curl"
+if [ -n "$missing" ]; then
+  echo "[test] installing Debian packages:$missing" >&2
+  apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq $missing >/dev/null
 fi
 DB_NAME=sixfold_it bash scripts/db.sh up test "$DB_PORT"
 DB_NAME=sixfold_e2e bash scripts/db.sh up test "$DB_PORT"
-trap 'bash scripts/db.sh down test "$DB_PORT" || true' EXIT
+export SMTP_PORT=2526 MAIL_CAPTURE_FILE="$ROOT/.data/mail/test-captured.jsonl"
+rm -f "$MAIL_CAPTURE_FILE"
+start_mail_fake "$SMTP_PORT" "$MAIL_CAPTURE_FILE"
+trap 'stop_mail_fake; bash scripts/db.sh down test "$DB_PORT" || true' EXIT
+node scripts/build-worker.mjs
 
 status=0
 echo "== unit and integration tests (vitest)" >&2
-DB_NAME=sixfold_it node_modules/.bin/vitest run --reporter=default --reporter=json \
+DB_NAME=sixfold_it SIXFOLD_MAIL_TIMER=off node_modules/.bin/vitest run --reporter=default --reporter=json \
   --outputFile.json=.data/results/vitest.json || status=1
 
 echo "== browser tests (playwright, Debian chromium)" >&2

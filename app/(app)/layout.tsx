@@ -18,7 +18,11 @@ export default async function AppLayout({ children }: { children: React.ReactNod
           </Link>
           <nav className="flex gap-4 text-sm">
             <Link href="/projects">Projects</Link>
+            <Link href="/dashboard">Dashboard</Link>
             <Link href="/help/format">Exchange format</Link>
+            <Link href="/help/api">API</Link>
+            <Link href="/settings">Settings</Link>
+            {user.role === "admin" && <Link href="/admin">Admin</Link>}
           </nav>
           <div className="ml-auto flex items-center gap-3 text-sm">
             <span data-testid="whoami">

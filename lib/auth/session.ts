@@ -2,6 +2,9 @@
 import "server-only";
 import { getServerSession } from "next-auth";
 import { redirect } from "next/navigation";
+import { headers } from "next/headers";
+import { authenticateToken } from "@/lib/db/tokens";
+import { ensureOutboxTimer } from "@/lib/mail/outbox";
 import { authOptions } from "./options";
 import { forbidden, unauthorized } from "@/lib/errors";
 import { findUserById } from "@/lib/db/users";
@@ -14,8 +17,24 @@ export interface SessionUser {
   role: Role;
 }
 
-/** The signed-in user (re-read from the database so a disabled account or changed role takes effect), or null. */
+/** The Authorization header of the current request, or null outside a request. */
+async function bearer(): Promise<string | null> {
+  try {
+    const auth = (await headers()).get("authorization");
+    return auth && /^bearer\s+/i.test(auth) ? auth.replace(/^bearer\s+/i, "").trim() : null;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * The caller: a bearer API token (CAD scripts) or the signed-in user, re-read from the database so a
+ * disabled account or changed role takes effect; null when neither is valid.
+ */
 export async function currentUser(): Promise<SessionUser | null> {
+  ensureOutboxTimer();
+  const token = await bearer();
+  if (token !== null) return authenticateToken(token);
   const session = await getServerSession(authOptions);
   const id = session?.user?.id;
   if (!id) return null;

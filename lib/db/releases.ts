@@ -5,6 +5,7 @@ import { recordEvent } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
+import { enqueueMail } from "@/lib/mail/outbox";
 
 /** Error-severity threads that are open or reopened and appear in the revision (they block release). */
 export async function blockingFindings(revisionId: number): Promise<{ threadId: number; title: string }[]> {
@@ -33,6 +34,9 @@ export async function requestRelease(user: SessionUser, revisionId: number): Pro
     await trx("releases").insert({ revision_id: revisionId, requested_by: user.id });
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release-request", actorId: user.id, revisionId, detail: { number: rev.number } });
   });
+  const l = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layout_id).select("l.name", "p.checker_id").first();
+  const checkers = l.checker_id ? [l.checker_id] : (await db()("users").where({ role: "checker", active: true }).select("id")).map((u: { id: number }) => u.id);
+  await enqueueMail(checkers, "release-request", `Release requested: ${l.name} r${rev.number}`, `${user.name} asks for release of revision ${rev.number} of ${l.name}.`, `/layouts/${rev.layout_id}?revision=${revisionId}`, user.id);
 }
 
 /** A checker approves a requested release when no error finding is open. */
@@ -53,4 +57,6 @@ export async function approveRelease(user: SessionUser, revisionId: number, repo
     if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });
   });
+  const l = await db()("layouts").where({ id: rev.layout_id }).first();
+  await enqueueMail([req.requested_by, l.created_by], "release", `Released: ${l.name} r${rev.number}`, `${user.name} approved the release of revision ${rev.number} of ${l.name}.`, `/layouts/${rev.layout_id}?revision=${revisionId}`, user.id);
 }

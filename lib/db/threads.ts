@@ -7,6 +7,14 @@ import { listEvents, recordEvent, type EventDto } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
+import { enqueueMail } from "@/lib/mail/outbox";
+
+/** Who follows a thread: the layout's owner, the project's checker and everyone who commented on it. */
+async function followers(threadId: number): Promise<{ owner: number; checker: number | null; commenters: number[]; layoutName: string; title: string }> {
+  const t = await db()("threads as t").join("layouts as l", "l.id", "t.layout_id").join("projects as p", "p.id", "l.project_id").where("t.id", threadId).select("l.created_by", "p.checker_id", "l.name", "t.title").first();
+  const commenters = (await db()("comments").where({ thread_id: threadId }).distinct("author_id")).map((r: { author_id: number }) => r.author_id);
+  return { owner: t.created_by, checker: t.checker_id ?? null, commenters, layoutName: t.name, title: t.title };
+}
 
 export type ThreadStatus = "open" | "waived" | "resolved" | "reopened";
 
@@ -116,6 +124,15 @@ export async function changeStatus(user: SessionUser, threadId: number, input: z
     }
     await recordEvent(trx, { layoutId: t.layout_id, kind: input.action, actorId: user.id, threadId, detail: { reason: input.reason, from: t.status } });
   });
+  const f = await followers(threadId);
+  await enqueueMail(
+    [f.owner, ...(f.checker ? [f.checker] : []), ...f.commenters],
+    "status",
+    `${input.action === "waive" ? "Waived" : "Reopened"}: ${f.title}`,
+    `${user.name} ${input.action === "waive" ? "waived" : "reopened"} the finding "${f.title}" on ${f.layoutName}.${input.reason ? `\n\nReason: ${input.reason}` : ""}`,
+    `/findings/${threadId}`,
+    user.id,
+  );
   return getThread(user, threadId);
 }
 
@@ -139,6 +156,18 @@ export async function addComment(user: SessionUser, threadId: number, body: stri
     await recordEvent(trx, { layoutId: t.layout_id, kind: "comment", actorId: user.id, threadId, detail: { commentId, mentions: mentions.map((m) => m.id) } });
     return commentId as number;
   });
+  const f = await followers(threadId);
+  const excerpt = body.length > 400 ? `${body.slice(0, 400)}…` : body;
+  await enqueueMail(mentions.map((m) => m.id), "mention", `${user.name} mentioned you: ${f.title}`, `${user.name} mentioned you on "${f.title}" (${f.layoutName}):\n\n${excerpt}`, `/findings/${threadId}`, user.id);
+  const mentioned = new Set(mentions.map((m) => m.id));
+  await enqueueMail(
+    [f.owner, ...(f.checker ? [f.checker] : [])].filter((id) => !mentioned.has(id)),
+    "comment",
+    `New comment: ${f.title}`,
+    `${user.name} commented on "${f.title}" (${f.layoutName}):\n\n${excerpt}`,
+    `/findings/${threadId}`,
+    user.id,
+  );
   const thread = await getThread(user, threadId);
   return thread.comments.find((c) => c.id === id)!;
 }

@@ -1,0 +1,52 @@
+/** Personal API tokens: created and shown once, stored as SHA-256 hashes, named, last use recorded, revocable. */
+import "server-only";
+import { createHash, randomBytes } from "node:crypto";
+import { z } from "zod";
+import { db } from "./knex";
+import { notFound } from "@/lib/errors";
+import type { Role } from "@/lib/roles";
+
+export const tokenInputSchema = z.object({ name: z.string().trim().min(2, "Give the token a name of at least 2 characters.").max(100, "A name is at most 100 characters.") });
+
+export interface TokenDto {
+  id: number;
+  name: string;
+  prefix: string;
+  createdAt: string;
+  lastUsedAt: string | null;
+  revokedAt: string | null;
+}
+
+const hash = (token: string) => createHash("sha256").update(token).digest("hex");
+
+function toDto(r: Record<string, unknown>): TokenDto {
+  const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
+  return { id: r.id as number, name: r.name as string, prefix: r.prefix as string, createdAt: iso(r.created_at)!, lastUsedAt: iso(r.last_used_at), revokedAt: iso(r.revoked_at) };
+}
+
+/** Creates a token for the user; the plain token is returned only here. */
+export async function createToken(user: { id: number }, name: string): Promise<{ token: string; info: TokenDto }> {
+  const token = `sfx_${randomBytes(32).toString("base64url")}`;
+  const [id] = await db()("api_tokens").insert({ user_id: user.id, name, prefix: token.slice(0, 12), token_hash: hash(token) });
+  return { token, info: toDto(await db()("api_tokens").where({ id }).first()) };
+}
+
+/** The user's tokens (never their hashes). */
+export async function listTokens(user: { id: number }): Promise<TokenDto[]> {
+  return (await db()("api_tokens").where({ user_id: user.id }).orderBy("id", "desc")).map(toDto);
+}
+
+/** Revokes one of the user's tokens. */
+export async function revokeToken(user: { id: number }, id: number): Promise<void> {
+  const n = await db()("api_tokens").where({ id, user_id: user.id }).whereNull("revoked_at").update({ revoked_at: db().fn.now(3) });
+  if (n !== 1) throw notFound("That active token");
+}
+
+/** The user behind a bearer token, or null for an unknown, revoked or malformed one; records the use. */
+export async function authenticateToken(token: string): Promise<{ id: number; name: string; email: string; role: Role } | null> {
+  if (!/^sfx_[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
+  const row = await db()("api_tokens as t").join("users as u", "u.id", "t.user_id").where("t.token_hash", hash(token)).whereNull("t.revoked_at").where("u.active", true).select("t.id", "u.id as uid", "u.name", "u.email", "u.role").first();
+  if (!row) return null;
+  await db()("api_tokens").where({ id: row.id }).update({ last_used_at: db().fn.now(3) });
+  return { id: row.uid, name: row.name, email: row.email, role: row.role };
+}
