@@ -20,10 +20,16 @@ async function main(): Promise<void> {
     }
   } finally {
     await knex.destroy();
+    // seeds go through lib/db, which opens the app's shared pool: close it too
+    const shared = (globalThis as unknown as { sixfoldKnex?: { destroy(): Promise<void> } }).sixfoldKnex;
+    if (shared) await shared.destroy();
   }
 }
 
-main().catch((err) => {
-  console.error(err);
-  process.exit(1);
-});
+main().then(
+  () => process.exit(0),
+  (err) => {
+    console.error(err);
+    process.exit(1);
+  },
+);
