@@ -27,6 +27,8 @@ export default defineConfig({
   globalSetup: "./tests/e2e/global-setup.ts",
   use: {
     baseURL: `http://localhost:${port}`,
+    // API calls made through page.request carry the Origin a browser would send (the CSRF guard checks it)
+    extraHTTPHeaders: { origin: `http://localhost:${port}` },
     trace: "retain-on-failure",
     screenshot: "only-on-failure",
     launchOptions: {

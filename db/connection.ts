@@ -14,6 +14,6 @@ export function connectionConfig(env: NodeJS.ProcessEnv = process.env): Knex.Con
       charset: "utf8mb4",
       timezone: "Z",
     },
-    pool: { min: 0, max: Number(env.DB_POOL_MAX ?? 10) },
+    pool: { min: 0, max: Number(env.DB_POOL_MAX ?? 20) },
   };
 }

@@ -20,8 +20,8 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
     setBusy(false);
     if (res?.ok && !res.error) {
       window.location.assign(callbackUrl);
-    } else if (res?.status === 429) {
-      setError("Too many attempts. Wait a minute, then try again.");
+    } else if (res?.error === "TOO_MANY_ATTEMPTS") {
+      setError("Too many failed attempts for this e-mail. Wait five minutes, then try again.");
     } else {
       setError("That e-mail and password do not match an account. Check both and try again.");
     }

@@ -12,10 +12,29 @@ export function errorResponse(err: unknown): Response {
   return Response.json({ error: "Something went wrong on the server. Nothing was changed." }, { status: 500 });
 }
 
-/** Wraps a handler body so thrown errors become proper responses. */
+/**
+ * CSRF guard for cookie-authenticated mutations: a state-changing request must come from our own origin
+ * (Origin, or else Referer, naming the same host). Bearer-token requests carry no cookie and are exempt.
+ */
+export function checkSameOrigin(req: Request): void {
+  if (["GET", "HEAD", "OPTIONS"].includes(req.method)) return;
+  if (/^bearer\s+/i.test(req.headers.get("authorization") ?? "")) return;
+  const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
+  const source = req.headers.get("origin") ?? req.headers.get("referer");
+  let sourceHost: string | null = null;
+  try {
+    sourceHost = source ? new URL(source).host : null;
+  } catch {
+    sourceHost = null;
+  }
+  if (!host || !sourceHost || sourceHost !== host) throw new AppError(403, "This request did not come from a Sixfold page (cross-site requests are refused).");
+}
+
+/** Wraps a handler body so thrown errors become proper responses; mutations pass the same-origin check first. */
 export function handle<A extends unknown[]>(fn: (...args: A) => Promise<Response>) {
   return async (...args: A): Promise<Response> => {
     try {
+      if (args[0] instanceof Request) checkSameOrigin(args[0]);
       return await fn(...args);
     } catch (err) {
       return errorResponse(err);

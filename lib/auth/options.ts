@@ -3,6 +3,7 @@ import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { z } from "zod";
 import { verifyCredentials } from "@/lib/db/users";
+import { isLocked, recordFailure, recordSuccess } from "./rate-limit";
 import type { Role } from "@/lib/roles";
 
 const credentialsSchema = z.object({
@@ -12,6 +13,8 @@ const credentialsSchema = z.object({
 
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 12 * 60 * 60 },
+  // session cookies are httpOnly and SameSite=Lax; Secure whenever the site is served over https
+  useSecureCookies: (process.env.NEXTAUTH_URL ?? "").startsWith("https://"),
   pages: { signIn: "/signin", signOut: "/signout", error: "/signin" },
   providers: [
     CredentialsProvider({
@@ -20,8 +23,15 @@ export const authOptions: NextAuthOptions = {
       async authorize(raw) {
         const parsed = credentialsSchema.safeParse(raw);
         if (!parsed.success) return null;
+        const key = parsed.data.email.trim().toLowerCase();
+        if (isLocked(key)) throw new Error("TOO_MANY_ATTEMPTS");
         const user = await verifyCredentials(parsed.data.email, parsed.data.password);
-        return user ? { id: String(user.id), email: user.email, name: user.name, role: user.role } : null;
+        if (!user) {
+          if (recordFailure(key)) throw new Error("TOO_MANY_ATTEMPTS");
+          return null;
+        }
+        recordSuccess(key);
+        return { id: String(user.id), email: user.email, name: user.name, role: user.role };
       },
     }),
   ],

@@ -10,3 +10,22 @@ export function db(): Knex {
   if (!globalForKnex.sixfoldKnex) globalForKnex.sixfoldKnex = knexLib(connectionConfig());
   return globalForKnex.sixfoldKnex;
 }
+
+/**
+ * Runs a transaction, retrying it (up to 4 times, with a short random pause) when MariaDB picks it as a
+ * deadlock victim or a lock wait times out: InnoDB rolls the whole transaction back, so a retry is safe.
+ */
+export async function transaction<T>(fn: (trx: Knex.Transaction) => Promise<T>): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await db().transaction(fn);
+    } catch (err) {
+      const code = (err as { errno?: number }).errno;
+      if ((code === 1213 || code === 1205) && attempt < 5) {
+        await new Promise((r) => setTimeout(r, 20 * attempt + Math.random() * 50));
+        continue;
+      }
+      throw err;
+    }
+  }
+}

@@ -1,6 +1,6 @@
 /** Release of a revision: a designer requests it, a checker approves when no error finding is open. */
 import "server-only";
-import { db } from "./knex";
+import { db, transaction } from "./knex";
 import { recordEvent } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
@@ -30,7 +30,7 @@ export async function requestRelease(user: SessionUser, revisionId: number): Pro
   const latest = await latestOf(rev.layout_id);
   if (latest.id !== rev.id) throw conflict(`Only the newest revision (${latest.number}) can be released.`);
   if (await db()("releases").where({ revision_id: revisionId }).first()) throw conflict("Release of this revision is already requested.");
-  await db().transaction(async (trx) => {
+  await transaction(async (trx) => {
     await trx("releases").insert({ revision_id: revisionId, requested_by: user.id });
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release-request", actorId: user.id, revisionId, detail: { number: rev.number } });
   });
@@ -52,7 +52,7 @@ export async function approveRelease(user: SessionUser, revisionId: number, repo
   const blocking = await blockingFindings(revisionId);
   if (blocking.length) throw new AppError(409, `${blocking.length} error finding${blocking.length === 1 ? " is" : "s are"} still open: ${blocking.map((b) => b.title).join("; ")}`, { blocking });
   const md = reportMarkdown ? await reportMarkdown(revisionId) : null;
-  await db().transaction(async (trx) => {
+  await transaction(async (trx) => {
     const n = await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").update({ approved_by: user.id, approved_at: trx.fn.now(3), report_md: md });
     if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });

@@ -4,7 +4,7 @@
  */
 import "server-only";
 import { createHash } from "node:crypto";
-import { db } from "./knex";
+import { db, transaction } from "./knex";
 import { recordEvent } from "./events";
 import { forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
@@ -113,7 +113,7 @@ export async function getRevision(_user: SessionUser, revisionId: number): Promi
 
 /** Records a refused upload (nothing else is stored). */
 export async function recordRefusedUpload(user: SessionUser, layoutId: number, fileName: string, size: number, errors: LayoutError[]): Promise<void> {
-  await db().transaction(async (trx) => {
+  await transaction(async (trx) => {
     await trx("upload_attempts").insert({ layout_id: layoutId, user_id: user.id, file_name: fileName.slice(0, 255), size_bytes: size, accepted: false, errors: JSON.stringify(errors.slice(0, 200)) });
     await recordEvent(trx, { layoutId, kind: "upload-refused", actorId: user.id, detail: { fileName, errors: errors.length } });
   });
@@ -130,7 +130,7 @@ export interface StoreInput {
 /** Stores an analysed revision with its findings in one transaction and carries the threads over. */
 export async function storeRevision(user: SessionUser, layoutId: number, input: StoreInput): Promise<RevisionSummaryDto> {
   if (!allowed(user.role, "uploadRevision")) throw forbidden("Only designers upload revisions.");
-  const id = await db().transaction(async (trx) => {
+  const id = await transaction(async (trx) => {
     const layout = await trx("layouts").where({ id: layoutId }).forUpdate().first();
     if (!layout) throw notFound("That layout");
     const last = await trx("revisions").where({ layout_id: layoutId }).max({ n: "number" }).first();

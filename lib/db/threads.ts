@@ -2,7 +2,7 @@
 import "server-only";
 import { z } from "zod";
 import type { Knex } from "knex";
-import { db } from "./knex";
+import { db, transaction } from "./knex";
 import { listEvents, recordEvent, type EventDto } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
@@ -109,7 +109,7 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
 /** Waives (checker, with a justification) or reopens a thread; refuses a stale version with 409. */
 export async function changeStatus(user: SessionUser, threadId: number, input: z.infer<typeof statusSchema>): Promise<ThreadDto> {
   if (!allowed(user.role, input.action)) throw forbidden(input.action === "waive" ? "Only checkers waive findings." : "Only checkers reopen findings.");
-  await db().transaction(async (trx) => {
+  await transaction(async (trx) => {
     const t = await trx("threads").where({ id: threadId }).forUpdate().first();
     if (!t) throw notFound("That finding");
     if (t.version !== input.version) throw conflict("Someone changed this finding while you were looking at it. Reload to see their change; nothing was overwritten.");
@@ -148,7 +148,7 @@ export async function mentionedUsers(body: string): Promise<{ id: number; name: 
 export async function addComment(user: SessionUser, threadId: number, body: string): Promise<CommentDto> {
   if (!allowed(user.role, "comment")) throw forbidden("Your role reads threads but does not comment.");
   const mentions = await mentionedUsers(body);
-  const id = await db().transaction(async (trx) => {
+  const id = await transaction(async (trx) => {
     const t = await trx("threads").where({ id: threadId }).first();
     if (!t) throw notFound("That finding");
     if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only. Upload a new revision to continue the review.");
@@ -174,7 +174,7 @@ export async function addComment(user: SessionUser, threadId: number, body: stri
 
 /** Edits one's own comment, keeping the earlier text in its history. */
 export async function editComment(user: SessionUser, commentId: number, body: string): Promise<CommentDto> {
-  const threadId = await db().transaction(async (trx) => {
+  const threadId = await transaction(async (trx) => {
     const c = await trx("comments").where({ id: commentId }).forUpdate().first();
     if (!c) throw notFound("That comment");
     if (c.author_id !== user.id) throw forbidden("You can edit only your own comments.");

@@ -47,6 +47,10 @@ export async function authenticateToken(token: string): Promise<{ id: number; na
   if (!/^sfx_[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
   const row = await db()("api_tokens as t").join("users as u", "u.id", "t.user_id").where("t.token_hash", hash(token)).whereNull("t.revoked_at").where("u.active", true).select("t.id", "u.id as uid", "u.name", "u.email", "u.role").first();
   if (!row) return null;
-  await db()("api_tokens").where({ id: row.id }).update({ last_used_at: db().fn.now(3) });
+  // last use to the minute: one write a minute per token, not one per request (busy scripts share a token)
+  await db()("api_tokens")
+    .where({ id: row.id })
+    .where((q) => q.whereNull("last_used_at").orWhere("last_used_at", "<", db().raw("now(3) - interval 60 second")))
+    .update({ last_used_at: db().fn.now(3) });
   return { id: row.uid, name: row.name, email: row.email, role: row.role };
 }

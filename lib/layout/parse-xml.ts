@@ -78,7 +78,12 @@ export function parseXmlLayout(text: string): ParseResult {
       errors: [{ location: `line ${lineOf(text, decl.index)}`, message: `${decl[1].toUpperCase()} declarations are not allowed in a layout file (entities are never expanded)` }],
     };
   }
-  const valid = XMLValidator.validate(text, { allowBooleanAttributes: false });
+  let valid: ReturnType<typeof XMLValidator.validate>;
+  try {
+    valid = XMLValidator.validate(text, { allowBooleanAttributes: false });
+  } catch (e) {
+    return { ok: false, errors: [{ location: "file", message: `the file is not well-formed XML: ${(e as Error).message}` }] };
+  }
   if (valid !== true) {
     return { ok: false, errors: [{ location: `line ${valid.err.line}, column ${valid.err.col}`, message: `the file is not well-formed XML: ${valid.err.msg}` }] };
   }
@@ -92,7 +97,13 @@ export function parseXmlLayout(text: string): ParseResult {
     parseTagValue: false,
     trimValues: true,
   });
-  const roots = toNodes(parser.parse(text) as unknown[]);
+  let roots: XmlNode[];
+  try {
+    roots = toNodes(parser.parse(text) as unknown[]);
+  } catch (e) {
+    // the parser refuses what the validator let through (nesting limits, processing instructions)
+    return { ok: false, errors: [{ location: "file", message: `the XML cannot be read: ${(e as Error).message}` }] };
+  }
   if (roots.length !== 1 || roots[0].tag !== "mount-layout") {
     return { ok: false, errors: [{ location: "/", message: "the root element must be <mount-layout>" }] };
   }
