@@ -8,6 +8,11 @@ export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     return Response.json({ error: err.message, ...(err.details ? { details: err.details } : {}) }, { status: err.status });
   }
+  const code = (err as { code?: string }).code ?? "";
+  if (/^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|PROTOCOL_CONNECTION_LOST|ER_SERVER_SHUTDOWN|ER_CON_COUNT_ERROR)$/.test(code) || /Knex: Timeout acquiring a connection/.test(String(err))) {
+    console.error("[api] database unreachable", code || String(err));
+    return Response.json({ error: "The database is not reachable right now. Nothing was stored; try again in a moment." }, { status: 503 });
+  }
   console.error("[api] unexpected error", err);
   return Response.json({ error: "Something went wrong on the server. Nothing was changed." }, { status: 500 });
 }
