@@ -82,6 +82,13 @@ async function main() {
   let uploadN = 0;
   console.error(`[load] ${base}, ${seconds} s, layout ${layoutId}, thread ${threadId}, run ${runId}`);
 
+  if (process.env.LOAD_MIX === "findings") {
+    // the findings API alone, 50 clients: the figure the target names
+    const only = await run({ url: base, connections: 50, duration: seconds, requests: [{ method: "GET", path: `/api/v1/layouts/${layoutId}/findings?status=open`, headers: auth(manager) }] });
+    console.table([summary("findings API only", only)]);
+    process.exitCode = only.result.errors + only.result.non2xx === 0 ? 0 : 1;
+    return;
+  }
   const reads = run({
     url: base,
     connections: 40,
