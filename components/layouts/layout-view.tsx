@@ -9,6 +9,7 @@ import { LayoutStateBadge } from "@/components/projects/layout-state";
 import { FindingsTable, type FindingRow } from "./findings-table";
 import { UploadPanel } from "./upload-panel";
 import { RevisionDiffView } from "./revision-diff";
+import { LoadCaseTable } from "./load-case-table";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
@@ -146,6 +147,7 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
                 {rev.report.foundation ? ` · foundation coupling ${Number(rev.report.foundation.maxPerMicrometre.toPrecision(4))} ${rev.report.units.force} per µm` : ""}
               </p>
             )}
+            <LoadCaseTable report={rev.report} />
           </section>
 
           <LayoutDrawings layout={rev.layout} report={rev.report} />

@@ -37,10 +37,19 @@ export function renderText(r: Report): string {
       lines.push(`  ${i + 1}. pivot ${s.pivot}: ${parts.join(", ")}`);
     });
   }
-  if (r.seating?.forces) {
+  const solved = r.loadCases.filter((c) => c.seating);
+  if (solved.length) {
     const fu = r.units.force;
-    lines.push("", `Seating (stiffness: ${r.seating.stiffness}, margin ${r.seating.margin === null ? "—" : num(r.seating.margin)})`);
-    for (const [k, v] of Object.entries(r.seating.forces)) lines.push(`  ${k.padEnd(12)} ${num(v).padStart(10)} ${fu}${r.seating.liftOff.includes(k) ? "  lifted off" : ""}`);
+    const ids = [...new Set(solved.flatMap((c) => Object.keys(c.seating!.forces ?? {})))];
+    lines.push("", `Seat forces by load case (${fu}; stiffness: ${solved[0].seating!.stiffness}; < marks each seat's worst case)`);
+    lines.push(`  ${"contact".padEnd(12)}${solved.map((c) => c.id.slice(0, 18).padStart(20)).join("")}`);
+    for (const id of ids) {
+      const cells = solved.map((c) => (c.seating!.forces === null ? "not held" : c.seating!.liftOff.includes(id) ? "lifts off" : num(c.seating!.forces[id] ?? 0)));
+      const values = solved.map((c) => (c.seating!.forces === null || c.seating!.liftOff.includes(id) ? -Infinity : c.seating!.forces[id] ?? 0));
+      const worst = solved.length > 1 ? values.indexOf(Math.min(...values)) : -1;
+      lines.push(`  ${id.padEnd(12)}${cells.map((v, i) => (v + (i === worst ? " <" : "  ")).padStart(20)).join("")}`);
+    }
+    lines.push(`  ${"margin".padEnd(12)}${solved.map((c) => (c.seating!.margin === null ? "—" : num(c.seating!.margin)).padStart(18) + "  ").join("")}`);
   }
   if (r.foundation) lines.push("", `Foundation coupling: at most ${num(r.foundation.maxPerMicrometre)} ${r.units.force} per µm of support rise`);
   lines.push("", `Findings: ${r.findings.length}`);
