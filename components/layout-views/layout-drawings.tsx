@@ -25,6 +25,8 @@ interface Props {
   emphasis?: Emphasis;
   /** printable: no controls, fixed layout */
   print?: boolean;
+  /** earlier positions of moved contacts (revision diff): drawn hollow, joined to the new position */
+  ghosts?: { id: string; point: Vec3 }[];
 }
 
 const W = 420;
@@ -52,7 +54,7 @@ const unitOf = (v: Vec3) => {
   return v.map((x) => x / l) as Vec3;
 };
 
-export function LayoutDrawings({ layout, report, emphasis, print = false }: Props) {
+export function LayoutDrawings({ layout, report, emphasis, print = false, ghosts = [] }: Props) {
   const [showMotions, setShowMotions] = useState(true);
   const [showLoops, setShowLoops] = useState(true);
   const [showForces, setShowForces] = useState(!!report.seating?.forces);
@@ -100,6 +102,7 @@ export function LayoutDrawings({ layout, report, emphasis, print = false }: Prop
             active={active}
             setActive={setActive}
             lengthUnit={lengthUnit}
+            ghosts={ghosts}
           />
         ))}
       </div>
@@ -155,13 +158,14 @@ interface OneViewProps {
   active: string | null;
   setActive: (id: string | null) => void;
   lengthUnit: string;
+  ghosts: { id: string; point: Vec3 }[];
 }
 
-function OneView({ view, layout, report, emphasis, print, show, loopContacts, bodyShape, motions, active, setActive, lengthUnit }: OneViewProps) {
+function OneView({ view, layout, report, emphasis, print, show, loopContacts, bodyShape, motions, active, setActive, lengthUnit, ghosts }: OneViewProps) {
   const [zoom, setZoom] = useState(1);
   const [pan, setPan] = useState<[number, number]>([0, 0]);
   const drag = useRef<[number, number] | null>(null);
-  const pts = layout.contacts.map((c) => project(c.point, view));
+  const pts = [...layout.contacts.map((c) => project(c.point, view)), ...ghosts.map((g) => project(g.point, view))];
   const fit: Fit = useMemo(() => fitPoints(pts.length ? pts : [[0, 0]], W, H, 40), [pts.length, view.name]); // eslint-disable-line react-hooks/exhaustive-deps
   const extent = Math.max((W - 80) / fit.scale, 1e-9);
   const arrow = extent * 0.09;
@@ -237,6 +241,20 @@ function OneView({ view, layout, report, emphasis, print, show, loopContacts, bo
             if (q.length < 2) return null;
             return <polyline key={k} points={[...q, q[0]].map((p) => p.join(",")).join(" ")} fill="none" stroke="#a3271f" strokeWidth={0.8} strokeDasharray="2 3" data-loop={s.pivot} />;
           })}
+
+        {/* earlier positions of moved contacts (revision diff) */}
+        {ghosts.map((g) => {
+          const now = layout.contacts.find((c) => c.id === g.id);
+          const [gx, gy] = px(project(g.point, view));
+          const to = now ? px(project(now.point, view)) : null;
+          return (
+            <g key={`ghost-${g.id}`} data-ghost={g.id}>
+              {to && <line x1={gx} y1={gy} x2={to[0]} y2={to[1]} stroke="#55595d" strokeWidth={0.8} strokeDasharray="1.5 2" />}
+              <rect x={gx - 3.5} y={gy - 3.5} width={7} height={7} fill="none" stroke="#55595d" strokeWidth={1} strokeDasharray="1.5 1" />
+              <text x={gx + 5} y={gy + 11} fontSize={8} fill="#55595d">{g.id} (before)</text>
+            </g>
+          );
+        })}
 
         {/* contacts */}
         {layout.contacts.map((c) => {

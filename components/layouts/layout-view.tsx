@@ -121,7 +121,8 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
             <div className="mb-3 flex flex-wrap items-baseline gap-3">
               <h2 id="summary-heading" className="text-base">Revision {rev.number}</h2>
               <span className="text-xs text-graphite-soft">{rev.fileName} · {rev.encoding.toUpperCase()} · {fmt(rev.createdAt)} UTC · {rev.uploadedBy}</span>
-              <a className="ml-auto text-xs" href={`/api/revisions/${rev.id}/report?format=md`}>Report (markdown)</a>
+              <Link className="ml-auto text-xs" href={`/layouts/${layoutId}/print?revision=${rev.id}`}>Printable report</Link>
+              <a className="text-xs" href={`/api/revisions/${rev.id}/report?format=md`}>Report (markdown)</a>
               <a className="text-xs" href={`/api/revisions/${rev.id}/report?format=pdf`}>Report (PDF)</a>
             </div>
             <dl className="grid grid-cols-2 gap-x-6 gap-y-2 text-sm sm:grid-cols-4 lg:grid-cols-8" data-testid="summary">
@@ -196,7 +197,7 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
                   </select>
                 </label>
               </div>
-              {compareWith && <RevisionDiffView revisionId={rev.id} against={compareWith} />}
+              {compareWith && <RevisionDiffView revisionId={rev.id} against={compareWith} layout={rev.layout} report={rev.report} />}
             </section>
           )}
         </>

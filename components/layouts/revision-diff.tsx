@@ -4,6 +4,9 @@ import Link from "next/link";
 import { useQuery } from "@tanstack/react-query";
 import { fetchJson } from "@/components/ui/fetch-json";
 import { SeverityBadge } from "@/components/review/badges";
+import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
+import type { Report } from "@/lib/engine";
+import type { Layout, Vec3 } from "@/lib/layout/model";
 
 interface Diff {
   from: number;
@@ -12,12 +15,13 @@ interface Diff {
   findings: Record<"new" | "resolved" | "unchanged", { threadId: number; title: string; severity: string }[]>;
 }
 
-export function RevisionDiffView({ revisionId, against }: { revisionId: number; against: number }) {
+export function RevisionDiffView({ revisionId, against, layout, report }: { revisionId: number; against: number; layout?: Layout; report?: Report }) {
   const q = useQuery({ queryKey: ["diff", revisionId, against], queryFn: () => fetchJson<{ diff: Diff }>(`/api/revisions/${revisionId}/diff?against=${against}`) });
   if (q.isPending) return <p role="status" className="text-sm text-graphite-soft">Comparing…</p>;
   if (q.isError) return <p role="alert" className="text-sm text-severity-error">{(q.error as Error).message}</p>;
   const d = q.data.diff;
   return (
+    <div className="space-y-3">
     <div className="grid gap-3 md:grid-cols-2" data-testid="revision-diff">
       <div className="sheet p-3 text-sm">
         <h3 className="mb-2 font-semibold">Contacts (r{d.from} → r{d.to})</h3>
@@ -38,6 +42,13 @@ export function RevisionDiffView({ revisionId, against }: { revisionId: number; 
           </div>
         ))}
       </div>
+    </div>
+    {layout && report && d.contacts.moved.length > 0 && (
+      <div data-testid="diff-drawing">
+        <p className="mb-1 text-xs text-graphite-soft">Moved contacts: dashed squares mark where they were in r{d.from}; the dotted line leads to r{d.to}.</p>
+        <LayoutDrawings layout={layout} report={report} emphasis={{ contacts: d.contacts.moved.map((m) => m.id), motions: [] }} ghosts={d.contacts.moved.map((m) => ({ id: m.id, point: m.from as Vec3 }))} />
+      </div>
+    )}
     </div>
   );
 }

@@ -3,13 +3,24 @@ import "server-only";
 import { z } from "zod";
 import { AppError, invalid } from "@/lib/errors";
 
+/** True for errors that mean the database cannot be reached (down, restarting, connection lost). */
+export function isDatabaseUnreachable(err: unknown): boolean {
+  const e = err as { code?: string; errno?: number; fatal?: boolean };
+  return (
+    /^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|PROTOCOL_CONNECTION_LOST|ER_SERVER_SHUTDOWN|ER_CON_COUNT_ERROR)$/.test(e?.code ?? "") ||
+    e?.errno === 2006 ||
+    e?.errno === 2013 ||
+    /Knex: Timeout acquiring a connection|socket has been ended/.test(String(err))
+  );
+}
+
 /** Maps an error to a JSON response: known AppErrors keep status and message, anything else is logged and 500. */
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     return Response.json({ error: err.message, ...(err.details ? { details: err.details } : {}) }, { status: err.status });
   }
-  const code = (err as { code?: string }).code ?? "";
-  if (/^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|PROTOCOL_CONNECTION_LOST|ER_SERVER_SHUTDOWN|ER_CON_COUNT_ERROR)$/.test(code) || /Knex: Timeout acquiring a connection/.test(String(err))) {
+  if (isDatabaseUnreachable(err)) {
+    const code = (err as { code?: string }).code ?? "";
     console.error("[api] database unreachable", code || String(err));
     return Response.json({ error: "The database is not reachable right now. Nothing was stored; try again in a moment." }, { status: 503 });
   }

@@ -21,7 +21,9 @@ export async function transaction<T>(fn: (trx: Knex.Transaction) => Promise<T>):
       return await db().transaction(fn);
     } catch (err) {
       const code = (err as { errno?: number }).errno;
-      if ((code === 1213 || code === 1205) && attempt < 5) {
+      // a connection that died while the pool kept it (database restarted) fails once: the pool drops it
+      const stale = attempt === 1 && /^(EPIPE|ECONNRESET|PROTOCOL_CONNECTION_LOST)$/.test((err as { code?: string }).code ?? "");
+      if (((code === 1213 || code === 1205) && attempt < 5) || stale) {
         await new Promise((r) => setTimeout(r, 20 * attempt + Math.random() * 50));
         continue;
       }

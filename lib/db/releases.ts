@@ -6,6 +6,7 @@ import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import { enqueueMail } from "@/lib/mail/outbox";
+import { requireProjectChecker } from "./threads";
 
 /** Error-severity threads that are open or reopened and appear in the revision (they block release). */
 export async function blockingFindings(revisionId: number): Promise<{ threadId: number; title: string }[]> {
@@ -44,6 +45,7 @@ export async function approveRelease(user: SessionUser, revisionId: number, repo
   if (!allowed(user.role, "approveRelease")) throw forbidden("Only checkers approve a release.");
   const rev = await db()("revisions").where({ id: revisionId }).first();
   if (!rev) throw notFound("That revision");
+  await requireProjectChecker(db(), rev.layout_id, user);
   const req = await db()("releases").where({ revision_id: revisionId }).first();
   if (!req) throw conflict("No release has been requested for this revision.");
   if (req.approved_at) throw conflict("This revision is already released.");

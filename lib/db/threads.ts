@@ -56,6 +56,12 @@ export const statusSchema = z.discriminatedUnion("action", [
 
 type Row = Record<string, unknown>;
 
+/** When a project has an assigned checker, only that checker decides (waive, reopen, approve). */
+export async function requireProjectChecker(trx: Knex | Knex.Transaction, layoutId: number, user: SessionUser): Promise<void> {
+  const p = await trx("layouts as l").join("projects as p", "p.id", "l.project_id").leftJoin("users as c", "c.id", "p.checker_id").where("l.id", layoutId).select("p.checker_id", "c.name").first();
+  if (p?.checker_id && p.checker_id !== user.id) throw forbidden(`${p.name} is the checker of this project; only the assigned checker decides on its findings and releases.`);
+}
+
 /** True when the layout's newest revision has been released (then it is read-only). */
 async function latestReleased(trx: Knex | Knex.Transaction, layoutId: number): Promise<boolean> {
   const latest = await trx("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first();
@@ -112,6 +118,7 @@ export async function changeStatus(user: SessionUser, threadId: number, input: z
   await transaction(async (trx) => {
     const t = await trx("threads").where({ id: threadId }).forUpdate().first();
     if (!t) throw notFound("That finding");
+    await requireProjectChecker(trx, t.layout_id, user);
     if (t.version !== input.version) throw conflict("Someone changed this finding while you were looking at it. Reload to see their change; nothing was overwritten.");
     if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only. Upload a new revision to change the review.");
     if (input.action === "waive") {

@@ -18,6 +18,7 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   const fu = unitLabel(r.units.force);
   const lines: string[] = [];
   lines.push(`# Release report — ${layout.name}, revision ${rev.number}`, "");
+  lines.push(`Drawing views: /layouts/${rev.layoutId}/print?revision=${rev.id} (plan, front, side and axonometric).`, "");
   lines.push(`Project: ${layout.project}  `, `File: ${rev.fileName} (${rev.encoding.toUpperCase()}), uploaded by ${rev.uploadedBy} on ${rev.createdAt.slice(0, 10)}  `, `Layout: ${r.layout}`, "");
   lines.push("## Summary", "", "| quantity | value |", "|---|---|");
   lines.push(`| bodies | ${r.counts.bodies} |`, `| contacts | ${r.counts.contacts} |`, `| rank | ${r.counts.rank} |`, `| freedoms | ${r.counts.freedoms} |`, `| redundancies | ${r.counts.redundancies} |`);

@@ -22,3 +22,16 @@ test("a finding page draws four views with its contacts emphasised", async ({ pa
   await expect(page.getByTestId("contact-info")).toContainText("mm");
   await page.screenshot({ path: info.outputPath("finding-drawings.png"), fullPage: true });
 });
+
+test("the printable report carries the same four drawing views and the report text", async ({ page }) => {
+  await signInAs(page, "checker");
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Two-blade flexure stage" }).click();
+  await page.getByRole("link", { name: "Stage guidance" }).click();
+  await page.getByRole("link", { name: "Printable report" }).click();
+  await expect(page.getByTestId("printable-report")).toContainText("Release report");
+  await expect(page.locator("svg[data-view]")).toHaveCount(4);
+  await expect(page.getByTestId("printable-report")).toContainText("Waived by Chen Okafor");
+  await page.emulateMedia({ media: "print" });
+  await expect(page.getByRole("button", { name: "Print" })).toBeHidden();
+});

@@ -109,6 +109,20 @@ describe("revisions and thread carry-over", () => {
   });
 });
 
+describe("assigned checker", () => {
+  it("when a project has an assigned checker, another checker may comment but not waive or approve (403)", async () => {
+    const [otherId] = await knex("users").insert({ email: "sam@larkspur.example", name: "Sam Ito", role: "checker", password_hash: "x" });
+    const other: SessionUser = { id: otherId, name: "Sam Ito", email: "sam@larkspur.example", role: "checker" };
+    const layoutId = (await createLayout(users.designer, projectId, { name: "Assigned bench", description: "" })).id;
+    const rev = await storeRevision(users.designer, layoutId, analysed("breadboard-three-seats.json"));
+    const t = (await listThreads(users.manager, layoutId))[0];
+    await expect(changeStatus(other, t.id, { action: "waive", reason: "Not my project, but let me try.", version: t.version })).rejects.toMatchObject({ status: 403, message: expect.stringMatching(/Chen Okafor is the checker/) });
+    await requestRelease(users.designer, rev.id);
+    await expect(approveRelease(other, rev.id)).rejects.toMatchObject({ status: 403 });
+    expect((await addComment(other, t.id, "A second pair of eyes: looks fine.")).author.name).toBe("Sam Ito");
+  });
+});
+
 describe("comments", () => {
   it("designers and checkers comment; managers and admins read only; mentions are found; authors edit their own with history", async () => {
     const layoutId = (await createLayout(users.designer, projectId, { name: "Comment bench", description: "" })).id;

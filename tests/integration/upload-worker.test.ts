@@ -71,6 +71,28 @@ describe("uploadRevision", () => {
     expect(result.ok && result.report.units).toEqual({ length: "in", force: "lbf" });
   });
 
+  it("hostile files through the upload path: each refused with located errors, no revision stored", async () => {
+    const enc = (t: string) => new TextEncoder().encode(t);
+    const hostile: [string, Uint8Array][] = [
+      ["lolz.xml", enc('<?xml version="1.0"?><!DOCTYPE lolz [<!ENTITY lol "lol">]><mount-layout format="mount-layout/1">&lol;</mount-layout>')],
+      ["xxe.xml", enc('<!DOCTYPE x [<!ENTITY xxe SYSTEM "file:///etc/passwd">]><mount-layout/>')],
+      ["deep.json", enc("[".repeat(300000) + "]".repeat(300000))],
+      ["deep.xml", enc("<a>".repeat(20000) + "</a>".repeat(20000))],
+      ["binary.json", Uint8Array.from({ length: 2048 }, (_, i) => (i * 131) % 256)],
+      ["huge.json", new Uint8Array(5 * 1024 * 1024 + 10).fill(0x20)],
+      ["nan.csv", enc("id,x,y,z,nx,ny,nz\na,NaN,0,0,0,0,1\n")],
+      ["quotes.csv", enc('id,x,y,z,nx,ny,nz\n"a,"b",0,0,0,0,1\n')],
+      ["types.json", enc('{"format":"mount-layout/1","bodies":"x","contacts":7}')],
+    ];
+    const before = await knex("revisions").count({ n: "*" }).first();
+    for (const [name, bytes] of hostile) {
+      const r = await uploadRevision(designer, layoutId, bytes, { fileName: name });
+      expect(r.ok, name).toBe(false);
+      if (!r.ok) for (const e of r.errors) expect(e.location, name).toBeTruthy();
+    }
+    expect(await knex("revisions").count({ n: "*" }).first()).toEqual(before);
+  });
+
   it("refuses other roles (403) and an empty file (422)", async () => {
     const checker = await knex("users").where({ role: "checker" }).first();
     await expect(uploadRevision(checker, layoutId, new Uint8Array([1]), { fileName: "x.json" })).rejects.toMatchObject({ status: 403 });

@@ -58,6 +58,24 @@ describe("LayoutDrawings", () => {
     expect(report.seating!.liftOff.length).toBeGreaterThan(0);
   });
 
+  it("draws moved contacts' earlier positions (revision diff) in every view", () => {
+    const layout = example("breadboard-three-seats");
+    const { report } = runEngine(layout);
+    const ghosts = [{ id: "S1a", point: [40, 40, -4.49] as [number, number, number] }, { id: "S2b", point: [560, 40, -4.49] as [number, number, number] }];
+    const html = renderToStaticMarkup(<LayoutDrawings layout={layout} report={report} ghosts={ghosts} />);
+    expect(count(html, "data-ghost")).toBe(2 * 4);
+    expect(html).toContain("S1a (before)");
+  });
+
+  it("prints without controls", () => {
+    const layout = example("breadboard-four-feet");
+    const { report } = runEngine(layout);
+    const html = renderToStaticMarkup(<LayoutDrawings layout={layout} report={report} print />);
+    expect(count(html, "data-view")).toBe(4);
+    expect(html).not.toContain("Zoom in");
+    expect(html).not.toContain('type="checkbox"');
+  });
+
   it("describes what is drawn in text for people who cannot see the drawing", () => {
     const { html } = render("breadboard-four-feet");
     expect(html).toContain("What is drawn");
