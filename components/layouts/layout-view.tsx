@@ -13,18 +13,9 @@ import { LoadCaseTable } from "./load-case-table";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
+import type { RevisionSummaryDto } from "@/lib/db/revisions";
 
-interface RevisionSummary {
-  id: number;
-  number: number;
-  encoding: string;
-  fileName: string;
-  counts: { bodies: number; contacts: number; rank: number; freedoms: number; redundancies: number };
-  conditioning: number;
-  uploadedBy: string;
-  createdAt: string;
-  release: { requestedBy: string; requestedAt: string; approvedBy: string | null; approvedAt: string | null } | null;
-}
+type RevisionSummary = RevisionSummaryDto;
 
 interface LayoutData {
   layout: { id: number; name: string; description: string; projectId: number; projectName: string; revisions: number; openErrors: number; released: boolean; releaseRequested: boolean };

@@ -5,21 +5,9 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { ApiError, fetchJson } from "@/components/ui/fetch-json";
 import { LayoutStateBadge } from "./layout-state";
+import type { LayoutSummaryDto } from "@/lib/db/layouts";
 
-interface LayoutRow {
-  id: number;
-  name: string;
-  description: string;
-  createdBy: string;
-  revisions: number;
-  latestRevision: { number: number; createdAt: string; freedoms: number; redundancies: number } | null;
-  openErrors: number;
-  openWarnings: number;
-  openInfos: number;
-  waived: number;
-  released: boolean;
-  releaseRequested: boolean;
-}
+type LayoutRow = LayoutSummaryDto;
 
 interface ProjectData {
   project: { id: number; name: string; description: string; checker: { name: string } | null };

@@ -3,15 +3,9 @@
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { fetchJson, ApiError } from "@/components/ui/fetch-json";
+import type { ProjectDto } from "@/lib/db/projects";
 
-interface Project {
-  id: number;
-  name: string;
-  description: string;
-  checker: { id: number; name: string } | null;
-  createdBy: string | null;
-  createdAt: string;
-}
+type Project = ProjectDto;
 
 export function ProjectsView({ canCreate, checkers }: { canCreate: boolean; checkers: { id: number; name: string }[] }) {
   const query = useQuery({

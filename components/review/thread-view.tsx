@@ -9,35 +9,10 @@ import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import { SeverityBadge, StatusBadge } from "./badges";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
+import type { CommentDto, ThreadDto } from "@/lib/db/threads";
 
-interface Comment {
-  id: number;
-  author: { id: number; name: string; role: string };
-  body: string;
-  createdAt: string;
-  editedAt: string | null;
-  history: { body: string; replacedAt: string }[];
-  mine: boolean;
-}
-
-interface Thread {
-  id: number;
-  layoutId: number;
-  layoutName: string;
-  projectId: number;
-  projectName: string;
-  rule: string;
-  severity: "error" | "warning" | "info";
-  title: string;
-  status: "open" | "waived" | "resolved" | "reopened";
-  waiverReason: string | null;
-  waivedBy: string | null;
-  version: number;
-  readOnly: boolean;
-  appearances: { revisionId: number; revisionNumber: number; body: string; contacts: string[]; loadCase: string | null }[];
-  comments: Comment[];
-  history: { id: number; kind: string; actor: string | null; createdAt: string; detail: Record<string, unknown> }[];
-}
+type Comment = CommentDto;
+type Thread = ThreadDto;
 
 const fmt = (iso: string) => iso.slice(0, 16).replace("T", " ");
 
