@@ -100,7 +100,7 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
 
       {can.upload && !layout.released && <UploadPanel layoutId={layoutId} onUploaded={(id) => { setSelected(id); setCompareWith(null); void qc.invalidateQueries({ queryKey: ["layout", layoutId] }); router.replace(`/layouts/${layoutId}?revision=${id}`); }} />}
       {can.upload && layout.released && (
-        <div className="sheet p-4 text-sm">The newest revision is released and read-only. <UploadPanel layoutId={layoutId} onUploaded={(id) => { setSelected(id); void qc.invalidateQueries({ queryKey: ["layout", layoutId] }); }} /></div>
+        <div className="sheet space-y-2 p-4 text-sm"><p>The newest revision is released and read-only; a new upload starts the next revision.</p><UploadPanel layoutId={layoutId} onUploaded={(id) => { setSelected(id); void qc.invalidateQueries({ queryKey: ["layout", layoutId] }); }} /></div>
       )}
 
       {revisions.length === 0 && <div className="sheet px-6 py-10 text-center text-sm" data-testid="no-revisions">No revision yet. {can.upload ? "Upload the layout exported from CAD to start the review." : "The designer has not uploaded a file yet."} See the <Link href="/help/format">exchange format</Link>.</div>}

@@ -19,6 +19,12 @@ export interface TokenDto {
 
 const hash = (token: string) => createHash("sha256").update(token).digest("hex");
 
+/**
+ * Recently verified tokens (hash → user) for 10 s, so a busy CAD script does not cost a database round trip per
+ * request. Revoking clears the entry at once in this process; a role change or a disabled account takes up to 10 s.
+ */
+const verified = new Map<string, { user: { id: number; name: string; email: string; role: Role }; until: number }>();
+
 function toDto(r: Record<string, unknown>): TokenDto {
   const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
   return { id: r.id as number, name: r.name as string, prefix: r.prefix as string, createdAt: iso(r.created_at)!, lastUsedAt: iso(r.last_used_at), revokedAt: iso(r.revoked_at) };
@@ -38,19 +44,27 @@ export async function listTokens(user: { id: number }): Promise<TokenDto[]> {
 
 /** Revokes one of the user's tokens. */
 export async function revokeToken(user: { id: number }, id: number): Promise<void> {
+  const row = await db()("api_tokens").where({ id, user_id: user.id }).first();
   const n = await db()("api_tokens").where({ id, user_id: user.id }).whereNull("revoked_at").update({ revoked_at: db().fn.now(3) });
   if (n !== 1) throw notFound("That active token");
+  verified.delete(row.token_hash);
 }
 
 /** The user behind a bearer token, or null for an unknown, revoked or malformed one; records the use. */
 export async function authenticateToken(token: string): Promise<{ id: number; name: string; email: string; role: Role } | null> {
   if (!/^sfx_[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
-  const row = await db()("api_tokens as t").join("users as u", "u.id", "t.user_id").where("t.token_hash", hash(token)).whereNull("t.revoked_at").where("u.active", true).select("t.id", "u.id as uid", "u.name", "u.email", "u.role").first();
+  const h = hash(token);
+  const hit = verified.get(h);
+  if (hit && hit.until > Date.now()) return hit.user;
+  const row = await db()("api_tokens as t").join("users as u", "u.id", "t.user_id").where("t.token_hash", h).whereNull("t.revoked_at").where("u.active", true).select("t.id", "u.id as uid", "u.name", "u.email", "u.role").first();
   if (!row) return null;
   // last use to the minute: one write a minute per token, not one per request (busy scripts share a token)
   await db()("api_tokens")
     .where({ id: row.id })
     .where((q) => q.whereNull("last_used_at").orWhere("last_used_at", "<", db().raw("now(3) - interval 60 second")))
     .update({ last_used_at: db().fn.now(3) });
-  return { id: row.uid, name: row.name, email: row.email, role: row.role };
+  const user = { id: row.uid as number, name: row.name as string, email: row.email as string, role: row.role as Role };
+  if (verified.size > 5000) verified.clear();
+  verified.set(h, { user, until: Date.now() + 10_000 });
+  return user;
 }

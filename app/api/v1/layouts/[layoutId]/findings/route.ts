@@ -12,13 +12,22 @@ export const GET = handle(async (req: Request, ctx: { params: Promise<{ layoutId
   const user = await requireUser();
   const layoutId = await idFrom(ctx.params, "layoutId");
   const { status } = parseWith(querySchema, Object.fromEntries(new URL(req.url).searchParams));
-  if (!(await db()("layouts").where({ id: layoutId }).first())) throw notFound("That layout");
-  const latest = await db()("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first();
-  if (!latest) return Response.json({ revision: null, findings: [] }, { status: 200 });
   const wanted = status === "open" ? ["open", "reopened"] : status === "all" ? null : [status];
-  const q = db()("findings as f").join("threads as t", "t.id", "f.thread_id").where("f.revision_id", latest.id).select("t.id", "f.rule", "f.severity", "f.title", "t.status", "f.contacts", "f.load_case", "f.body").orderBy("f.id");
-  if (wanted) q.whereIn("t.status", wanted);
-  const rows: Record<string, unknown>[] = await q;
+  // one round trip: the newest revision and its findings (a layout with no revision or no match is checked after)
+  const q = db()("revisions as v")
+    .leftJoin("findings as f", "f.revision_id", "v.id")
+    .leftJoin("threads as t", "t.id", "f.thread_id")
+    .where("v.layout_id", layoutId)
+    .whereRaw("v.number = (select max(number) from revisions where layout_id = ?)", [layoutId])
+    .select("v.id as revision_id", "v.number", "t.id", "f.rule", "f.severity", "f.title", "t.status", "f.contacts", "f.load_case", "f.body")
+    .orderBy("f.id");
+  const all: Record<string, unknown>[] = await q;
+  if (!all.length) {
+    if (!(await db()("layouts").where({ id: layoutId }).first())) throw notFound("That layout");
+    return Response.json({ revision: null, findings: [] }, { status: 200 });
+  }
+  const latest = { id: all[0].revision_id as number, number: all[0].number as number };
+  const rows = all.filter((r) => r.id !== null && (!wanted || wanted.includes(r.status as string)));
   const findings = rows.map((f) => ({ id: f.id, rule: f.rule, severity: f.severity, title: f.title, status: f.status, contacts: JSON.parse(f.contacts as string), loadCase: f.load_case ?? null, body: f.body }));
   void user;
   return Response.json({ revision: { id: latest.id, number: latest.number }, findings }, { status: 200 });
