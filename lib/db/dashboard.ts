@@ -133,7 +133,11 @@ export async function dashboard(_user: SessionUser, f: DashboardFilter): Promise
 
 /** The project × severity table as CSV. */
 export function dashboardCsv(d: DashboardDto): string {
-  const q = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
+  // a cell that a spreadsheet would read as a formula is prefixed with an apostrophe (CSV injection)
+  const q = (raw: string) => {
+    const s = /^[=+\-@\t\r]/.test(raw) ? `'${raw}` : raw;
+    return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  };
   const lines = ["project,checker,open errors,open warnings,open infos,opened under a week ago,opened a week to a month ago,opened over a month ago"];
   for (const r of d.rows) lines.push([q(r.project), q(r.checker ?? ""), r.error, r.warning, r.info, r.underWeek, r.underMonth, r.older].join(","));
   const t = d.totals;

@@ -50,6 +50,8 @@ describe("dashboard (seeded Larkspur data)", () => {
     expect(d.layouts.find((l) => l.name === "Breadboard support")!.state).toBe("requested");
     expect(d.layouts.find((l) => l.name === "Stage guidance")!.state).toBe("released");
     const csv = dashboardCsv(d);
+    const injected = dashboardCsv({ ...d, rows: [{ ...d.rows[0], project: '=HYPERLINK("http://x.invalid")' }] });
+    expect(injected.split("\n")[1]).toMatch(/^"'=HYPERLINK\(""http:\/\/x\.invalid""\)"/);
     expect(csv.split("\n")[0]).toMatch(/^project,checker,open errors/);
     expect(csv).toMatch(/\ntotal,,4,2,4,10,0,0\n/);
   });
