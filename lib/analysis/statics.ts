@@ -125,16 +125,33 @@ interface Solve {
   driven: boolean;
 }
 
-/** u = (AᵀKA)⁺ w over the active contacts, λ = −K A u; `driven` when w has a part along a free motion. */
-function solveStiff(ctx: Ctx, k: number[], active: boolean[], w: number[]): Solve {
+interface Factor {
+  k: number[];
+  rows: number[];
+  s: number[];
+  V: Matrix;
+  r: number;
+}
+
+/** The SVD of K^½ A over the active contacts: factor once, solve for many load vectors. */
+function factorStiff(ctx: Ctx, k: number[], active: boolean[]): Factor {
   const rows = active.map((a, i) => (a ? i : -1)).filter((i) => i >= 0);
   const B = new Matrix(Math.max(rows.length, 1), ctx.n);
   rows.forEach((i, r) => {
-    const s = Math.sqrt(k[i]);
-    for (let j = 0; j < ctx.n; j++) B.set(r, j, s * ctx.c.A.get(i, j));
+    const sk = Math.sqrt(k[i]);
+    for (let j = 0; j < ctx.n; j++) B.set(r, j, sk * ctx.c.A.get(i, j));
   });
   const { s, V } = svdRight(B);
-  const r = rankOf(s, ctx.layout.tolerance);
+  return { k, rows, s, V, r: rankOf(s, ctx.layout.tolerance) };
+}
+
+/** u = (AᵀKA)⁺ w over the active contacts, λ = −K A u; `driven` when w has a part along a free motion. */
+function solveStiff(ctx: Ctx, k: number[], active: boolean[], w: number[]): Solve {
+  return solveWith(ctx, factorStiff(ctx, k, active), w);
+}
+
+function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
+  const { k, rows, s, V, r } = f;
   // u = V Σ⁻² Vᵀ w on the kept singular directions, then iterative refinement
   // (r = P w − BᵀB u) to bring the equilibrium residual down to rounding
   const applyPinv = (rhs: number[]): number[] => {
@@ -383,14 +400,16 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
     kFound = first.tangent.map((v, i) => (first.active[i] ? v : 0));
   }
   const active = first.active.map((a, i) => a && (kFound ? kFound[i] > 0 : true));
+  let foundFactor: Factor | null = null;
   const columnOf = (d: number[]): number[] => {
     // Δλ = K d − K A (AᵀKA)⁺ Aᵀ K d, over the active contacts
     const k = kFound!;
+    foundFactor ??= factorStiff(ctx, k.map((v) => (v > 0 ? v : 1)), active);
     const Kd = d.map((v, i) => (active[i] ? k[i] * v : 0));
     const w = new Array<number>(ctx.n).fill(0);
     for (let i = 0; i < m; i++) if (Kd[i] !== 0) for (let q = 0; q < ctx.n; q++) w[q] += c.A.get(i, q) * Kd[i];
     // (AᵀKA) u = AᵀK d, then Δλ = K (d − A u)
-    const { u } = solveStiff(ctx, k.map((v) => (v > 0 ? v : 1)), active, w.map((x) => x));
+    const { u } = solveWith(ctx, foundFactor, w);
     return d.map((v, i) => (active[i] ? k[i] * (v - separation(ctx, i, u)) : 0));
   };
   if (kFound) {
@@ -425,13 +444,14 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
     const kPts = kFound ?? layout.contacts.map(() => 1);
     const activePts = first.active;
     for (const pt of layout.points) points[pt.id] = { perMicrometre: {}, seatedUm: null, body: pt.body };
+    const ptFactor = ground.length ? factorStiff(ctx, kPts.map((v) => (v > 0 ? v : 1)), activePts) : null;
     for (const j of ground) {
       if (!activePts[j]) continue;
       const d = new Array<number>(m).fill(0);
       d[j] = perUm;
       const w = new Array<number>(ctx.n).fill(0);
       for (let q = 0; q < ctx.n; q++) w[q] = c.A.get(j, q) * kPts[j] * perUm;
-      const { u } = solveStiff(ctx, kPts.map((v) => (v > 0 ? v : 1)), activePts, w);
+      const { u } = solveWith(ctx, ptFactor!, w);
       for (const pt of layout.points) points[pt.id].perMicrometre[layout.contacts[j].id] = scale(pointDisplacement(ctx, pt.body, pt.point, u), 1 / perUm);
     }
     if (first.displacement) {
