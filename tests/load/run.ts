@@ -65,10 +65,27 @@ function summary(name: string, { result: r, times }: { result: autocannon.Result
   };
 }
 
+/** Revokes the tokens this run created (bearer callers may manage their own tokens). */
+async function revokeRunTokens(tokens: string[]): Promise<void> {
+  for (const t of tokens) {
+    const headers = { authorization: `Bearer ${t}` };
+    const list = (await (await fetch(`${base}/api/tokens`, { headers })).json()) as { tokens: { id: number; name: string; revokedAt: string | null }[] };
+    for (const x of list.tokens.filter((x) => x.name.startsWith(runId) && !x.revokedAt)) await fetch(`${base}/api/tokens/${x.id}`, { method: "DELETE", headers });
+  }
+}
+
 async function main() {
   const designer = await token("designer");
   const checker = await token("checker");
   const manager = await token("manager");
+  try {
+    await drive(designer, checker, manager);
+  } finally {
+    await revokeRunTokens([designer, checker, manager]);
+  }
+}
+
+async function drive(designer: string, checker: string, manager: string) {
   const auth = (t: string) => ({ authorization: `Bearer ${t}` });
   // a layout whose newest revision is not released (a released one is read-only)
   const projects = (await (await fetch(`${base}/api/projects`, { headers: auth(manager) })).json()) as { projects: { id: number; name: string }[] };
