@@ -18,7 +18,7 @@ export const uploadOptionsSchema = z.object({
   force: z.enum(forceUnits).optional(),
 });
 
-export type UploadResult = { ok: true; revision: RevisionSummaryDto; report: Report } | { ok: false; errors: { location: string; message: string }[] };
+export type UploadResult = { ok: true; revision: RevisionSummaryDto; report: Report; warnings: string[] } | { ok: false; errors: { location: string; message: string }[] };
 
 /** Validates, analyses (in a worker) and stores a revision, or records the refused attempt. */
 export async function uploadRevision(user: SessionUser, layoutId: number, bytes: Uint8Array, options: z.infer<typeof uploadOptionsSchema>): Promise<UploadResult> {
@@ -37,5 +37,5 @@ export async function uploadRevision(user: SessionUser, layoutId: number, bytes:
     return { ok: false, errors: outcome.errors };
   }
   const revision = await storeRevision(user, layoutId, { fileName: options.fileName, encoding: outcome.encoding, raw: outcome.text, layout: outcome.layout, report: outcome.report });
-  return { ok: true, revision, report: outcome.report };
+  return { ok: true, revision, report: outcome.report, warnings: outcome.warnings ?? [] };
 }

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { useDropzone } from "react-dropzone";
 
-type Phase = { kind: "idle" } | { kind: "uploading"; percent: number; name: string } | { kind: "analysing"; name: string } | { kind: "done"; number: number } | { kind: "refused"; name: string; errors: { location: string; message: string }[]; message: string } | { kind: "failed"; message: string };
+type Phase = { kind: "idle" } | { kind: "uploading"; percent: number; name: string } | { kind: "analysing"; name: string } | { kind: "done"; number: number; warnings: string[] } | { kind: "refused"; name: string; errors: { location: string; message: string }[]; message: string } | { kind: "failed"; message: string };
 
 export function UploadPanel({ layoutId, onUploaded }: { layoutId: number; onUploaded: (revisionId: number) => void }) {
   const [phase, setPhase] = useState<Phase>({ kind: "idle" });
@@ -23,14 +23,14 @@ export function UploadPanel({ layoutId, onUploaded }: { layoutId: number; onUplo
     xhr.upload.onload = () => setPhase({ kind: "analysing", name: file.name });
     xhr.onerror = () => setPhase({ kind: "failed", message: "The server could not be reached. Your file is unchanged; try again." });
     xhr.onload = () => {
-      let body: { error?: string; errors?: { location: string; message: string }[]; revision?: { id: number; number: number } } = {};
+      let body: { error?: string; errors?: { location: string; message: string }[]; revision?: { id: number; number: number }; warnings?: string[] } = {};
       try {
         body = JSON.parse(xhr.responseText);
       } catch {
         /* non-JSON answer */
       }
       if (xhr.status === 201 && body.revision) {
-        setPhase({ kind: "done", number: body.revision.number });
+        setPhase({ kind: "done", number: body.revision.number, warnings: body.warnings ?? [] });
         onUploaded(body.revision.id);
       } else if (xhr.status === 422 || xhr.status === 413) {
         setPhase({ kind: "refused", name: file.name, errors: body.errors ?? [], message: body.error ?? "The file was refused." });
@@ -85,7 +85,16 @@ export function UploadPanel({ layoutId, onUploaded }: { layoutId: number; onUplo
             <progress className="w-full" />
           </div>
         )}
-        {phase.kind === "done" && <p className="text-sm text-teal-dark">Revision {phase.number} stored and analysed.</p>}
+        {phase.kind === "done" && (
+          <div className="text-sm">
+            <p className="text-teal-dark">Revision {phase.number} stored and analysed.</p>
+            {phase.warnings.length > 0 && (
+              <ul className="mt-1 rounded-sm border border-severity-warning/40 bg-severity-warning-bg p-2 text-xs text-severity-warning" data-testid="upload-warnings">
+                {phase.warnings.map((w) => (<li key={w}>▲ {w}</li>))}
+              </ul>
+            )}
+          </div>
+        )}
         {phase.kind === "failed" && <p role="alert" className="text-sm text-severity-error">{phase.message}</p>}
         {phase.kind === "refused" && (
           <div role="alert" className="rounded-sm border border-severity-error/40 bg-severity-error-bg p-3 text-sm text-severity-error">

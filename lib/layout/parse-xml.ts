@@ -109,6 +109,7 @@ export function parseXmlLayout(text: string): ParseResult {
   }
   const root = roots[0];
   const errors: LayoutError[] = [];
+  const warnings: string[] = [];
   const locations = new Map<string, string>();
   locations.set("/", "mount-layout");
 
@@ -116,7 +117,12 @@ export function parseXmlLayout(text: string): ParseResult {
     const spec = fields[node.tag];
     for (const [attr, value] of Object.entries(node.attrs)) {
       const f = spec[attr];
-      if (!f) continue;
+      if (!f) {
+        const layoutLevel = node.tag === "mount-layout" && (attr === "length" || attr === "force");
+        const radii = node.tag === "hertz" && (attr === "body-radii" || attr === "on-radii");
+        if (!layoutLevel && !radii && warnings.length < 50) warnings.push(`${path} @${attr}: unknown attribute "${attr}" was ignored (check the spelling)`);
+        continue;
+      }
       const [key, kind] = f;
       const where = `${path} @${attr}`;
       locations.set(`${ptr}/${key}`, where);
@@ -194,5 +200,6 @@ export function parseXmlLayout(text: string): ParseResult {
     }
     return p;
   };
-  return validateRaw(raw, locate);
+  const result = validateRaw(raw, locate);
+  return result.ok ? { ...result, warnings: [...warnings, ...result.warnings] } : result;
 }

@@ -85,6 +85,39 @@ export const rawLayoutSchema = z.object({
     .optional(),
 });
 
+const itemShapes: Record<string, z.ZodObject> = {
+  bodies: bodySchema,
+  materials: materialSchema,
+  contacts: contactSchema,
+  loads: loadSchema,
+  points: pointSchema,
+};
+
+/**
+ * Fields the format does not know are ignored (so later additions never break an older reader), but a
+ * misspelt optional field would silently drop data: each one is reported as a located warning.
+ */
+function unknownFieldWarnings(raw: unknown, locate: (ptr: string) => string): string[] {
+  const out: string[] = [];
+  if (!raw || typeof raw !== "object" || Array.isArray(raw)) return out;
+  const check = (obj: unknown, known: string[], ptr: string) => {
+    if (!obj || typeof obj !== "object" || Array.isArray(obj)) return;
+    for (const key of Object.keys(obj)) if (!known.includes(key) && out.length < 50) out.push(`${locate(`${ptr}/${key}`)}: unknown field "${key}" was ignored (check the spelling)`);
+  };
+  const r = raw as Record<string, unknown>;
+  check(r, Object.keys(rawLayoutSchema.shape), "");
+  check(r.units, ["length", "force"], "/units");
+  for (const [list, schema] of Object.entries(itemShapes)) {
+    if (!Array.isArray(r[list])) continue;
+    (r[list] as unknown[]).forEach((item, i) => {
+      check(item, Object.keys(schema.shape), `/${list}/${i}`);
+      if (list === "contacts") check((item as Record<string, unknown> | null)?.hertz, Object.keys(hertzSchema.shape), `/contacts/${i}/hertz`);
+    });
+  }
+  if (Array.isArray(r.loadCases)) r.loadCases.forEach((lc, i) => check(lc, ["id", "gravity", "loads"], `/loadCases/${i}`));
+  return out;
+}
+
 /** Turns a zod/JS path into a JSON pointer. */
 export function pointer(path: readonly PropertyKey[]): string {
   return path.length === 0 ? "/" : "/" + path.map((p) => String(p).replace(/~/g, "~0").replace(/\//g, "~1")).join("/");
@@ -125,7 +158,7 @@ export function validateRaw(raw: unknown, locate: (ptr: string) => string = (p) 
   if (errors.length) return { ok: false, errors };
   if (!layout.loadCases) delete layout.loadCases;
   else layout.loadCases = layout.loadCases.map((lc) => ({ ...lc, gravity: lc.gravity ?? layout.gravity }));
-  return { ok: true, layout, warnings: [] };
+  return { ok: true, layout, warnings: unknownFieldWarnings(raw, locate) };
 }
 
 function crossCheck(layout: Layout, locate: (ptr: string) => string): LayoutError[] {

@@ -24,7 +24,7 @@ parentPort?.on("message", (req: WorkerRequest) => {
     const text = new TextDecoder().decode(bytes);
     const encoding = req.encoding ?? detectEncoding(text, req.fileName);
     const { report } = runEngine(parsed.layout);
-    parentPort!.postMessage({ ok: true, layout: parsed.layout, report, encoding, text });
+    parentPort!.postMessage({ ok: true, layout: parsed.layout, report, encoding, text, warnings: parsed.warnings });
   } catch (err) {
     parentPort!.postMessage({ ok: false, crashed: true, message: (err as Error).message });
   }

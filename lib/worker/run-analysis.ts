@@ -9,7 +9,7 @@ import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
 import type { Report } from "@/lib/engine";
 
 export type AnalysisOutcome =
-  | { ok: true; layout: Layout; report: Report; encoding: Encoding; text: string }
+  | { ok: true; layout: Layout; report: Report; encoding: Encoding; text: string; warnings: string[] }
   | { ok: false; errors: LayoutError[] };
 
 /** The worker bundle, built by `node scripts/build-worker.mjs` (part of the start and test commands). */

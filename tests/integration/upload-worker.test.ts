@@ -66,6 +66,12 @@ describe("uploadRevision", () => {
     expect(await knex("upload_attempts").where({ accepted: false }).count({ n: "*" }).first()).toEqual({ n: 1 });
   });
 
+  it("returns located warnings for unknown fields of an accepted file", async () => {
+    const text = readFileSync("examples/breadboard-three-seats.json", "utf8").replace('"format"', '"colour": "red", "format"');
+    const result = await uploadRevision(designer, layoutId, new TextEncoder().encode(text), { fileName: "coloured.json" });
+    expect(result.ok && result.warnings).toEqual(['/colour: unknown field "colour" was ignored (check the spelling)']);
+  });
+
   it("takes the CSV units given at upload", async () => {
     const result = await uploadRevision(designer, layoutId, new Uint8Array(readFileSync("examples/mirror-cell-three-vee.csv")), { fileName: "cell.csv", length: "in", force: "lbf" });
     expect(result.ok && result.report.units).toEqual({ length: "in", force: "lbf" });

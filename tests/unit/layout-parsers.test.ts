@@ -59,6 +59,14 @@ describe("JSON reader", () => {
     expect(e.find((x) => x.location === location || x.location.startsWith(location))?.message).toMatch(message);
   });
 
+  it("accepts unknown fields but warns about each one, located, so a misspelt field does not drop data silently", () => {
+    const r = parseLayoutText(base({ colour: "red" }, { stifness: 5 }), { encoding: "json" });
+    expect(r.ok && r.warnings).toEqual([
+      '/colour: unknown field "colour" was ignored (check the spelling)',
+      '/contacts/0/stifness: unknown field "stifness" was ignored (check the spelling)',
+    ]);
+  });
+
   it("refuses duplicate ids and says where the first one is", () => {
     const text = JSON.stringify({
       format: "mount-layout/1",
@@ -115,6 +123,18 @@ describe("XML reader", () => {
     expect(l.units).toEqual({ length: "in", force: "lbf" });
     expect(l.intendedFreedoms).toBe(2);
     expect(l.tolerance).toBe(1e-8);
+  });
+
+  it("warns about unknown attributes with element and attribute", () => {
+    const r = parseLayoutText(xml('<body id="p" weight="3"/>\n<contact id="a" body="p" point="0 0 0" normal="0 0 1"/>'));
+    expect(r.ok && r.warnings).toEqual(['mount-layout/body[1] @weight: unknown attribute "weight" was ignored (check the spelling)']);
+  });
+
+  it("gives no warning for any example file", () => {
+    for (const f of ["breadboard-three-seats", "instrument-plate-socket-vee-flat"]) for (const e of ["json", "xml"]) {
+      const r = parseLayoutText(readFileSync(`examples/${f}.${e}`, "utf8"), { fileName: `${f}.${e}` });
+      expect(r.ok && r.warnings).toEqual([]);
+    }
   });
 
   it("refuses a DOCTYPE and names its line", () => {

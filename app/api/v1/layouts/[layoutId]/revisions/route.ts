@@ -32,5 +32,5 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ layoutI
   const bytes = new Uint8Array(await req.arrayBuffer());
   const result = await uploadRevision(user, layoutId, bytes, options);
   if (!result.ok) return Response.json({ error: "The file was refused; nothing was stored.", errors: result.errors }, { status: 422 });
-  return Response.json({ ...result.report, revision: { id: result.revision.id, number: result.revision.number, url: appLink(`/layouts/${layoutId}?revision=${result.revision.id}`) } }, { status: 201 });
+  return Response.json({ ...result.report, warnings: result.warnings, revision: { id: result.revision.id, number: result.revision.number, url: appLink(`/layouts/${layoutId}?revision=${result.revision.id}`) } }, { status: 201 });
 });
