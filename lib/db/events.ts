@@ -1,5 +1,6 @@
 /** Events: the append-only history of a layout (uploads, comments, status changes, releases). */
 import "server-only";
+import { iso } from "./rows";
 import type { Knex } from "knex";
 import { db } from "./knex";
 
@@ -43,6 +44,6 @@ export async function listEvents(filter: { layoutId?: number; threadId?: number 
     threadId: (r.thread_id as number | null) ?? null,
     revisionId: (r.revision_id as number | null) ?? null,
     detail: JSON.parse(r.detail as string),
-    createdAt: new Date(r.created_at as string).toISOString(),
+    createdAt: iso(r.created_at),
   }));
 }

@@ -1,5 +1,6 @@
 /** Layouts of a project: list with review state, create (designers), read one. */
 import "server-only";
+import { iso } from "./rows";
 import { z } from "zod";
 import { db } from "./knex";
 import { conflict, forbidden, notFound } from "@/lib/errors";
@@ -68,9 +69,9 @@ async function summaries(where: (q: ReturnType<ReturnType<typeof db>>) => void):
       name: r.name,
       description: r.description,
       createdBy: r.creator,
-      createdAt: new Date(r.created_at).toISOString(),
+      createdAt: iso(r.created_at),
       revisions: mine.length,
-      latestRevision: latest ? { id: latest.id, number: latest.number, createdAt: new Date(latest.created_at).toISOString(), freedoms: latest.freedoms, redundancies: latest.redundancies } : null,
+      latestRevision: latest ? { id: latest.id, number: latest.number, createdAt: iso(latest.created_at), freedoms: latest.freedoms, redundancies: latest.redundancies } : null,
       openErrors: c(["open", "reopened"], "error"),
       openWarnings: c(["open", "reopened"], "warning"),
       openInfos: c(["open", "reopened"], "info"),

@@ -1,5 +1,6 @@
 /** Projects: list for any signed-in user, create for managers. */
 import "server-only";
+import { iso } from "./rows";
 import { z } from "zod";
 import { db } from "./knex";
 import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
@@ -39,7 +40,7 @@ function toDto(row: ProjectRow): ProjectDto {
     description: row.description,
     checker: row.checker_id ? { id: row.checker_id, name: row.checker_name ?? "" } : null,
     createdBy: row.creator_name ?? null,
-    createdAt: new Date(row.created_at).toISOString(),
+    createdAt: iso(row.created_at),
   };
 }
 

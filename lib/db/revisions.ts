@@ -3,6 +3,7 @@
  * (same fingerprint keeps its thread, a vanished one resolves, a reappearing one reopens).
  */
 import "server-only";
+import { iso, isoOrNull } from "./rows";
 import { createHash } from "node:crypto";
 import { db, transaction } from "./knex";
 import { recordEvent } from "./events";
@@ -56,13 +57,13 @@ function toSummary(r: Row): RevisionSummaryDto {
     counts: { bodies: r.bodies as number, contacts: r.contacts as number, rank: r.rank_ as number, freedoms: r.freedoms as number, redundancies: r.redundancies as number },
     conditioning: r.conditioning as number,
     uploadedBy: r.uploader as string,
-    createdAt: new Date(r.created_at as string).toISOString(),
+    createdAt: iso(r.created_at),
     release: r.requested_at
       ? {
           requestedBy: r.requester as string,
-          requestedAt: new Date(r.requested_at as string).toISOString(),
+          requestedAt: iso(r.requested_at),
           approvedBy: (r.approver as string | null) ?? null,
-          approvedAt: r.approved_at ? new Date(r.approved_at as string).toISOString() : null,
+          approvedAt: isoOrNull(r.approved_at),
         }
       : null,
   };

@@ -1,5 +1,6 @@
 /** Review threads: read one with its findings, comments and history; waive, reopen; comment and edit. */
 import "server-only";
+import { iso, isoOrNull } from "./rows";
 import { z } from "zod";
 import type { Knex } from "knex";
 import { db, transaction } from "./knex";
@@ -103,9 +104,9 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
       id: c.id as number,
       author: { id: c.author_id as number, name: c.name as string, role: c.role as string },
       body: c.body as string,
-      createdAt: new Date(c.created_at as string).toISOString(),
-      editedAt: c.edited_at ? new Date(c.edited_at as string).toISOString() : null,
-      history: edits.filter((e) => e.comment_id === c.id).map((e) => ({ body: e.body as string, replacedAt: new Date(e.replaced_at as string).toISOString() })),
+      createdAt: iso(c.created_at),
+      editedAt: isoOrNull(c.edited_at),
+      history: edits.filter((e) => e.comment_id === c.id).map((e) => ({ body: e.body as string, replacedAt: iso(e.replaced_at) })),
       mine: c.author_id === user.id,
     })),
     history: await listEvents({ threadId }),

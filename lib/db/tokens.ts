@@ -1,5 +1,6 @@
 /** Personal API tokens: created and shown once, stored as SHA-256 hashes, named, last use recorded, revocable. */
 import "server-only";
+import { iso, isoOrNull } from "./rows";
 import { createHash, randomBytes } from "node:crypto";
 import { z } from "zod";
 import { db } from "./knex";
@@ -26,8 +27,7 @@ const hash = (token: string) => createHash("sha256").update(token).digest("hex")
 const verified = new Map<string, { user: { id: number; name: string; email: string; role: Role }; until: number }>();
 
 function toDto(r: Record<string, unknown>): TokenDto {
-  const iso = (v: unknown) => (v ? new Date(v as string).toISOString() : null);
-  return { id: r.id as number, name: r.name as string, prefix: r.prefix as string, createdAt: iso(r.created_at)!, lastUsedAt: iso(r.last_used_at), revokedAt: iso(r.revoked_at) };
+  return { id: r.id as number, name: r.name as string, prefix: r.prefix as string, createdAt: iso(r.created_at), lastUsedAt: isoOrNull(r.last_used_at), revokedAt: isoOrNull(r.revoked_at) };
 }
 
 /** Creates a token for the user; the plain token is returned only here. */

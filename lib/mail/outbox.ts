@@ -4,6 +4,7 @@
  * SMTP_HOST/SMTP_PORT (the local fake in development and tests).
  */
 import "server-only";
+import { iso, isoOrNull } from "@/lib/db/rows";
 import nodemailer from "nodemailer";
 import { db } from "@/lib/db/knex";
 
@@ -127,8 +128,8 @@ export async function listOutbox(limit = 200) {
     status: r.status as string,
     attempts: r.attempts as number,
     lastError: (r.last_error as string | null) ?? null,
-    createdAt: new Date(r.created_at as string).toISOString(),
-    sentAt: r.sent_at ? new Date(r.sent_at as string).toISOString() : null,
+    createdAt: iso(r.created_at),
+    sentAt: isoOrNull(r.sent_at),
   }));
 }
 

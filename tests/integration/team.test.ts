@@ -84,8 +84,9 @@ describe("mail outbox", () => {
     await knex("mail_outbox").update({ next_attempt_at: new Date(Date.now() - 1000) });
     expect(await flushOutbox()).toBe(1);
     expect(await knex("mail_outbox").first()).toMatchObject({ status: "sent", attempts: 2 });
-    const file = process.env.MAIL_CAPTURE_FILE;
-    if (file && existsSync(file)) expect(readFileSync(file, "utf8")).toMatch(/\[Sixfold\] Test subject/);
+    // the test command's fake SMTP server writes every message it accepts to this file
+    const file = process.env.MAIL_CAPTURE_FILE ?? "";
+    await expect.poll(() => (existsSync(file) ? readFileSync(file, "utf8") : ""), { timeout: 5000 }).toMatch(/\[Sixfold\] Test subject/);
   });
 });
 
