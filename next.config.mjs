@@ -24,7 +24,7 @@ const securityHeaders = [
 ];
 
 const nextConfig = {
-  serverExternalPackages: ["knex", "mysql2", "nodemailer", "smtp-server", "pdf-lib"],
+  serverExternalPackages: ["knex", "mysql2", "nodemailer", "smtp-server", "pdf-lib", "piscina"],
   poweredByHeader: false,
   reactStrictMode: true,
   async headers() {

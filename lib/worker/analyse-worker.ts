@@ -1,5 +1,4 @@
-/** Worker thread: parses and analyses one layout file off the server's event loop. */
-import { parentPort } from "node:worker_threads";
+/** Worker thread (pooled by piscina, see run-analysis.ts): parses and analyses one layout file off the server's event loop. */
 import { parseLayoutBytes, type Encoding } from "@/lib/layout";
 import { detectEncoding } from "@/lib/layout";
 import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
@@ -13,19 +12,17 @@ export interface WorkerRequest {
   force?: ForceUnit;
 }
 
-parentPort?.on("message", (req: WorkerRequest) => {
+/** One task: the parse errors, or the layout with its report; an engine exception comes back as `crashed`. */
+export function analyse(req: WorkerRequest) {
   try {
     const bytes = new Uint8Array(req.bytes);
     const parsed = parseLayoutBytes(bytes, { fileName: req.fileName, encoding: req.encoding, length: req.length, force: req.force });
-    if (!parsed.ok) {
-      parentPort!.postMessage({ ok: false, errors: parsed.errors });
-      return;
-    }
+    if (!parsed.ok) return { ok: false, errors: parsed.errors };
     const text = new TextDecoder().decode(bytes);
     const encoding = req.encoding ?? detectEncoding(text, req.fileName);
     const { report } = runEngine(parsed.layout);
-    parentPort!.postMessage({ ok: true, layout: parsed.layout, report, encoding, text, warnings: parsed.warnings });
+    return { ok: true, layout: parsed.layout, report, encoding, text, warnings: parsed.warnings };
   } catch (err) {
-    parentPort!.postMessage({ ok: false, crashed: true, message: (err as Error).message });
+    return { ok: false, crashed: true, message: (err as Error).message };
   }
-});
+}

@@ -8,6 +8,7 @@ import type { Layout, Vec3 } from "@/lib/layout/model";
 import { rng } from "../support/layouts";
 
 const { uploadRevision } = await import("@/lib/upload");
+const { analyseInWorker, analysisPoolStats, closeAnalysisPool } = await import("@/lib/worker/run-analysis");
 const { createLayout } = await import("@/lib/db/layouts");
 const { db } = await import("@/lib/db/knex");
 
@@ -22,6 +23,7 @@ beforeAll(async () => {
   layoutId = (await createLayout(designer, project.id, { name: "Worker bench", description: "" })).id;
 });
 afterAll(async () => {
+  await closeAnalysisPool();
   await knex.destroy();
   await db().destroy();
 });
@@ -103,5 +105,42 @@ describe("uploadRevision", () => {
     const checker = await knex("users").where({ role: "checker" }).first();
     await expect(uploadRevision(checker, layoutId, new Uint8Array([1]), { fileName: "x.json" })).rejects.toMatchObject({ status: 403 });
     await expect(uploadRevision(designer, layoutId, new Uint8Array(0), { fileName: "x.json" })).rejects.toMatchObject({ status: 422 });
+  });
+
+  it("reuses its analysis threads: six uploads in a row run on the same thread, not six new ones", async () => {
+    await closeAnalysisPool();
+    const file = new Uint8Array(readFileSync("examples/breadboard-three-seats.json"));
+    const ids = new Set<number>();
+    for (let i = 0; i < 6; i++) {
+      expect((await uploadRevision(designer, layoutId, file, { fileName: `seq-${i}.json` })).ok).toBe(true);
+      for (const id of analysisPoolStats().threadIds) ids.add(id);
+    }
+    expect(ids.size).toBe(1);
+    expect(analysisPoolStats().completed).toBe(6);
+  });
+
+  it("a full analysis queue refuses further uploads with 503 and stores nothing for them", async () => {
+    await closeAnalysisPool();
+    process.env.SIXFOLD_ANALYSIS_THREADS = "1";
+    process.env.SIXFOLD_ANALYSIS_QUEUE = "1";
+    try {
+      const before = Number((await knex("revisions").where({ layout_id: layoutId }).count({ n: "*" }).first())!.n);
+      const file = new Uint8Array(readFileSync("examples/breadboard-three-seats.json"));
+      // one long analysis runs and one waits: the single queue place is taken
+      const slow = new TextEncoder().encode(toJson(bigChain(60)));
+      const busy = [analyseInWorker(slow, { fileName: "busy-1.json" }), analyseInWorker(slow, { fileName: "busy-2.json" })];
+      await expect(uploadRevision(designer, layoutId, file, { fileName: "turned-away.json" })).rejects.toMatchObject({
+        status: 503,
+        message: expect.stringMatching(/1 layouts are already waiting for analysis.*Nothing was stored/),
+      });
+      expect((await Promise.all(busy)).every((o) => o.ok)).toBe(true);
+      expect(Number((await knex("revisions").where({ layout_id: layoutId }).count({ n: "*" }).first())!.n)).toBe(before);
+      // once the queue drains the same upload goes through
+      expect((await uploadRevision(designer, layoutId, file, { fileName: "turned-away.json" })).ok).toBe(true);
+    } finally {
+      delete process.env.SIXFOLD_ANALYSIS_THREADS;
+      delete process.env.SIXFOLD_ANALYSIS_QUEUE;
+      await closeAnalysisPool();
+    }
   });
 });
