@@ -31,3 +31,17 @@ export async function transaction<T>(fn: (trx: Knex.Transaction) => Promise<T>):
     }
   }
 }
+
+/**
+ * Locks a layout's row as the first statement of a transaction. Every review write on a layout takes this
+ * lock before touching its threads, comments or releases, so all of them lock in the same order and cannot
+ * deadlock one another: storing a revision and approving a release take it exclusively (they change which
+ * revision is newest or released), comments, waivers, edits and release requests share it. Taken first, it
+ * also means the transaction's later reads see everything committed before it (InnoDB fixes a transaction's
+ * snapshot at its first plain read). Returns false when the layout does not exist.
+ */
+export async function lockLayout(trx: Knex.Transaction, layoutId: number, mode: "share" | "update"): Promise<boolean> {
+  const q = trx("layouts").where({ id: layoutId }).select("id");
+  const row = await (mode === "update" ? q.forUpdate() : q.forShare()).first();
+  return !!row;
+}

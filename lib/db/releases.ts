@@ -1,6 +1,7 @@
 /** Release of a revision: a designer requests it, a checker approves when no error finding is open. */
 import "server-only";
-import { db, transaction } from "./knex";
+import type { Knex } from "knex";
+import { db, lockLayout, transaction } from "./knex";
 import { recordEvent } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
@@ -9,8 +10,8 @@ import { enqueueMail } from "@/lib/mail/outbox";
 import { requireProjectChecker } from "./threads";
 
 /** Error-severity threads that are open or reopened and appear in the revision (they block release). */
-export async function blockingFindings(revisionId: number): Promise<{ threadId: number; title: string }[]> {
-  const rows = await db()("findings as f")
+export async function blockingFindings(revisionId: number, q: Knex | Knex.Transaction = db()): Promise<{ threadId: number; title: string }[]> {
+  const rows = await q("findings as f")
     .join("threads as t", "t.id", "f.thread_id")
     .where("f.revision_id", revisionId)
     .where("f.severity", "error")
@@ -19,8 +20,14 @@ export async function blockingFindings(revisionId: number): Promise<{ threadId: 
   return rows.map((r: { id: number; title: string }) => ({ threadId: r.id, title: r.title }));
 }
 
-async function latestOf(layoutId: number) {
-  return db()("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first();
+/** The newest event of a layout: every review change (upload, comment, edit, waiver, request) records one; refused uploads change nothing. */
+async function reviewStamp(layoutId: number, q: Knex | Knex.Transaction = db()): Promise<number> {
+  const row = await q("events").where({ layout_id: layoutId }).whereNot({ kind: "upload-refused" }).max({ id: "id" }).first();
+  return Number(row?.id ?? 0);
+}
+
+async function latestOf(layoutId: number, q: Knex | Knex.Transaction = db()) {
+  return q("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first();
 }
 
 /** A designer asks for release of the newest revision. */
@@ -32,6 +39,10 @@ export async function requestRelease(user: SessionUser, revisionId: number): Pro
   if (latest.id !== rev.id) throw conflict(`Only the newest revision (${latest.number}) can be released.`);
   if (await db()("releases").where({ revision_id: revisionId }).first()) throw conflict("Release of this revision is already requested.");
   await transaction(async (trx) => {
+    // checked again under the layout's lock: an upload or another request may have landed meanwhile
+    await lockLayout(trx, rev.layout_id, "update");
+    if ((await latestOf(rev.layout_id, trx)).id !== rev.id) throw conflict("A newer revision was uploaded a moment ago; request release of that one.");
+    if (await trx("releases").where({ revision_id: revisionId }).first()) throw conflict("Release of this revision is already requested.");
     await trx("releases").insert({ revision_id: revisionId, requested_by: user.id });
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release-request", actorId: user.id, revisionId, detail: { number: rev.number } });
   });
@@ -53,8 +64,12 @@ export async function approveRelease(user: SessionUser, revisionId: number, repo
   if (latest.id !== rev.id) throw conflict(`A newer revision (${latest.number}) exists; release that one instead.`);
   const blocking = await blockingFindings(revisionId);
   if (blocking.length) throw new AppError(409, `${blocking.length} error finding${blocking.length === 1 ? " is" : "s are"} still open: ${blocking.map((b) => b.title).join("; ")}`, { blocking });
+  // the report is written from the review as it stands now; the transaction refuses if the review moves on meanwhile
+  const stamp = await reviewStamp(rev.layout_id);
   const md = reportMarkdown ? await reportMarkdown(revisionId) : null;
   await transaction(async (trx) => {
+    await lockLayout(trx, rev.layout_id, "update");
+    if ((await reviewStamp(rev.layout_id, trx)) !== stamp) throw conflict("The review changed while the release was being approved (a comment, waiver or upload). Reload and approve again.");
     const n = await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").update({ approved_by: user.id, approved_at: trx.fn.now(3), report_md: md });
     if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });

@@ -5,7 +5,7 @@
 import "server-only";
 import { iso, isoOrNull } from "./rows";
 import { createHash } from "node:crypto";
-import { db, transaction } from "./knex";
+import { db, lockLayout, transaction } from "./knex";
 import { recordEvent } from "./events";
 import { forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
@@ -115,6 +115,7 @@ export async function getRevision(_user: SessionUser, revisionId: number): Promi
 /** Records a refused upload (nothing else is stored). */
 export async function recordRefusedUpload(user: SessionUser, layoutId: number, fileName: string, size: number, errors: LayoutError[]): Promise<void> {
   await transaction(async (trx) => {
+    await lockLayout(trx, layoutId, "share");
     await trx("upload_attempts").insert({ layout_id: layoutId, user_id: user.id, file_name: fileName.slice(0, 255), size_bytes: size, accepted: false, errors: JSON.stringify(errors.slice(0, 200)) });
     await recordEvent(trx, { layoutId, kind: "upload-refused", actorId: user.id, detail: { fileName, errors: errors.length } });
   });
@@ -132,8 +133,7 @@ export interface StoreInput {
 export async function storeRevision(user: SessionUser, layoutId: number, input: StoreInput): Promise<RevisionSummaryDto> {
   if (!allowed(user.role, "uploadRevision")) throw forbidden("Only designers upload revisions.");
   const id = await transaction(async (trx) => {
-    const layout = await trx("layouts").where({ id: layoutId }).forUpdate().first();
-    if (!layout) throw notFound("That layout");
+    if (!(await lockLayout(trx, layoutId, "update"))) throw notFound("That layout");
     const last = await trx("revisions").where({ layout_id: layoutId }).max({ n: "number" }).first();
     const number = Number(last?.n ?? 0) + 1;
     const c = input.report.counts;

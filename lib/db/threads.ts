@@ -3,7 +3,7 @@ import "server-only";
 import { iso, isoOrNull } from "./rows";
 import { z } from "zod";
 import type { Knex } from "knex";
-import { db, transaction } from "./knex";
+import { db, lockLayout, transaction } from "./knex";
 import { listEvents, recordEvent, type EventDto } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
@@ -71,6 +71,34 @@ async function latestReleased(trx: Knex | Knex.Transaction, layoutId: number): P
   return !!rel;
 }
 
+/** The layout a thread belongs to (it never changes), or 404. */
+async function layoutOfThread(threadId: number): Promise<number> {
+  const t = await db()("threads").where({ id: threadId }).select("layout_id").first();
+  if (!t) throw notFound("That finding");
+  return t.layout_id as number;
+}
+
+/** Comments matching `where` (a thread's, or one by id), oldest first, each with its edit history. */
+async function readComments(user: SessionUser, where: Record<string, number>): Promise<CommentDto[]> {
+  const rows: Row[] = await db()("comments as c").join("users as u", "u.id", "c.author_id").where(where).select("c.*", "u.name", "u.role").orderBy("c.id", "asc");
+  const edits: Row[] = rows.length ? await db()("comment_edits").whereIn("comment_id", rows.map((c) => c.id as number)).orderBy("id", "asc") : [];
+  const history = new Map<number, { body: string; replacedAt: string }[]>();
+  for (const e of edits) {
+    const list = history.get(e.comment_id as number) ?? [];
+    list.push({ body: e.body as string, replacedAt: iso(e.replaced_at) });
+    history.set(e.comment_id as number, list);
+  }
+  return rows.map((c) => ({
+    id: c.id as number,
+    author: { id: c.author_id as number, name: c.name as string, role: c.role as string },
+    body: c.body as string,
+    createdAt: iso(c.created_at),
+    editedAt: isoOrNull(c.edited_at),
+    history: history.get(c.id as number) ?? [],
+    mine: c.author_id === user.id,
+  }));
+}
+
 /** One thread with everything its page shows. */
 export async function getThread(user: SessionUser, threadId: number): Promise<ThreadDto> {
   const t: Row | undefined = await db()("threads as t")
@@ -82,8 +110,7 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
     .first();
   if (!t) throw notFound("That finding");
   const appearances = await db()("findings as f").join("revisions as v", "v.id", "f.revision_id").where("f.thread_id", threadId).select("f.*", "v.number").orderBy("v.number", "asc");
-  const comments: Row[] = await db()("comments as c").join("users as u", "u.id", "c.author_id").where("c.thread_id", threadId).select("c.*", "u.name", "u.role").orderBy("c.id", "asc");
-  const edits: Row[] = comments.length ? await db()("comment_edits").whereIn("comment_id", comments.map((c) => c.id as number)).orderBy("id", "asc") : [];
+  const comments = await readComments(user, { "c.thread_id": threadId });
   return {
     id: t.id as number,
     layoutId: t.layout_id as number,
@@ -100,15 +127,7 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
     version: t.version as number,
     readOnly: await latestReleased(db(), t.layout_id as number),
     appearances: appearances.map((f: Row) => ({ revisionId: f.revision_id as number, revisionNumber: f.number as number, findingId: f.id as number, body: f.body as string, contacts: JSON.parse(f.contacts as string), loadCase: (f.load_case as string | null) ?? null })),
-    comments: comments.map((c) => ({
-      id: c.id as number,
-      author: { id: c.author_id as number, name: c.name as string, role: c.role as string },
-      body: c.body as string,
-      createdAt: iso(c.created_at),
-      editedAt: isoOrNull(c.edited_at),
-      history: edits.filter((e) => e.comment_id === c.id).map((e) => ({ body: e.body as string, replacedAt: iso(e.replaced_at) })),
-      mine: c.author_id === user.id,
-    })),
+    comments,
     history: await listEvents({ threadId }),
   };
 }
@@ -116,7 +135,9 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
 /** Waives (checker, with a justification) or reopens a thread; refuses a stale version with 409. */
 export async function changeStatus(user: SessionUser, threadId: number, input: z.infer<typeof statusSchema>): Promise<ThreadDto> {
   if (!allowed(user.role, input.action)) throw forbidden(input.action === "waive" ? "Only checkers waive findings." : "Only checkers reopen findings.");
+  const layoutId = await layoutOfThread(threadId);
   await transaction(async (trx) => {
+    await lockLayout(trx, layoutId, "share");
     const t = await trx("threads").where({ id: threadId }).forUpdate().first();
     if (!t) throw notFound("That finding");
     await requireProjectChecker(trx, t.layout_id, user);
@@ -156,7 +177,9 @@ export async function mentionedUsers(body: string): Promise<{ id: number; name: 
 export async function addComment(user: SessionUser, threadId: number, body: string): Promise<CommentDto> {
   if (!allowed(user.role, "comment")) throw forbidden("Your role reads threads but does not comment.");
   const mentions = await mentionedUsers(body);
+  const layoutId = await layoutOfThread(threadId);
   const id = await transaction(async (trx) => {
+    await lockLayout(trx, layoutId, "share");
     const t = await trx("threads").where({ id: threadId }).first();
     if (!t) throw notFound("That finding");
     if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only. Upload a new revision to continue the review.");
@@ -176,13 +199,15 @@ export async function addComment(user: SessionUser, threadId: number, body: stri
     `/findings/${threadId}`,
     user.id,
   );
-  const thread = await getThread(user, threadId);
-  return thread.comments.find((c) => c.id === id)!;
+  return (await readComments(user, { "c.id": id }))[0];
 }
 
 /** Edits one's own comment, keeping the earlier text in its history. */
 export async function editComment(user: SessionUser, commentId: number, body: string): Promise<CommentDto> {
-  const threadId = await transaction(async (trx) => {
+  const owner = await db()("comments as c").join("threads as t", "t.id", "c.thread_id").where("c.id", commentId).select("t.layout_id").first();
+  if (!owner) throw notFound("That comment");
+  await transaction(async (trx) => {
+    await lockLayout(trx, owner.layout_id as number, "share");
     const c = await trx("comments").where({ id: commentId }).forUpdate().first();
     if (!c) throw notFound("That comment");
     if (c.author_id !== user.id) throw forbidden("You can edit only your own comments.");
@@ -194,8 +219,7 @@ export async function editComment(user: SessionUser, commentId: number, body: st
     await recordEvent(trx, { layoutId: t.layout_id, kind: "comment-edit", actorId: user.id, threadId: c.thread_id, detail: { commentId } });
     return c.thread_id as number;
   });
-  const thread = await getThread(user, threadId);
-  return thread.comments.find((c) => c.id === commentId)!;
+  return (await readComments(user, { "c.id": commentId }))[0];
 }
 
 /** Threads of a layout with their current state (for the findings table). */

@@ -166,3 +166,66 @@ describe("release", () => {
     expect(summary).toMatchObject({ released: true, openErrors: 0, waived: 1 });
   });
 });
+
+describe("concurrent review writes on one layout", () => {
+  const deadlocks = async () => Number((await knex.raw("show global status like 'Innodb_deadlocks'"))[0][0].Value);
+
+  it("uploads, comments, edits and waivers at once all succeed, and MariaDB detects no deadlock (one lock order)", async () => {
+    // Before the layout lock came first, an upload (layout, then threads) and a comment (thread by its foreign key,
+    // then layout by the event's) could wait on each other; the retry hid most of it, this counter did not.
+    const layoutId = (await createLayout(users.designer, projectId, { name: "Busy bench", description: "" })).id;
+    await storeRevision(users.designer, layoutId, analysed("breadboard-four-feet.json"));
+    const threads = await listThreads(users.manager, layoutId);
+    const mine = await addComment(users.checker, threads[0].id, "first remark");
+    const before = await deadlocks();
+    const files = ["breadboard-three-seats.json", "breadboard-four-feet.json"];
+    const work: Promise<unknown>[] = [];
+    for (let round = 0; round < 6; round++) {
+      work.push(storeRevision(users.designer, layoutId, analysed(files[round % 2])));
+      for (const t of threads) work.push(addComment(round % 2 ? users.designer : users.checker, t.id, `round ${round} on ${t.id}`));
+      work.push(editComment(users.checker, mine.id, `first remark, edited ${round}`));
+      work.push(recordRefusedUpload(users.designer, layoutId, "bad.csv", 10, [{ location: "line 2", message: "x" }]));
+    }
+    const results = await Promise.allSettled(work);
+    expect(results.filter((r) => r.status === "rejected").map((r) => String((r as PromiseRejectedResult).reason))).toEqual([]);
+    expect(await deadlocks()).toBe(before);
+    const stored = await knex("comments").whereIn("thread_id", threads.map((t) => t.id)).where("body", "like", "round %").count({ n: "*" }).first();
+    expect(Number(stored!.n)).toBe(6 * threads.length);
+    expect((await knex("revisions").where({ layout_id: layoutId }).max({ n: "number" }).first())!.n).toBe(7);
+    // waivers under the same load: each one sees the current version and succeeds
+    const now = await listThreads(users.manager, layoutId);
+    const open = now.filter((t) => t.status !== "resolved");
+    const waives = open.map((t) => changeStatus(users.checker, t.id, { action: "waive", reason: "Accepted for the concurrency check.", version: t.version }));
+    const more = open.map((t) => addComment(users.designer, t.id, "while waiving"));
+    const last = storeRevision(users.designer, layoutId, analysed("breadboard-four-feet.json"));
+    const settled = await Promise.allSettled([...waives, ...more, last]);
+    // a waiver may meet a revision stored a moment earlier (409 stale version); nothing else may fail
+    const failures = settled.filter((r) => r.status === "rejected").map((r) => (r as PromiseRejectedResult).reason as { status?: number });
+    expect(failures.every((e) => e.status === 409)).toBe(true);
+    expect(await deadlocks()).toBe(before);
+  });
+
+  it("two release requests at once: one is stored, the other is told (409), never a server error", async () => {
+    const layoutId = (await createLayout(users.designer, projectId, { name: "Twin request bench", description: "" })).id;
+    const rev = await storeRevision(users.designer, layoutId, analysed("breadboard-three-seats.json"));
+    const both = await Promise.allSettled([requestRelease(users.designer, rev.id), requestRelease(users.designer, rev.id)]);
+    expect(both.filter((r) => r.status === "fulfilled")).toHaveLength(1);
+    expect((both.find((r) => r.status === "rejected") as PromiseRejectedResult).reason).toMatchObject({ status: 409 });
+    expect(await knex("releases").where({ revision_id: rev.id }).count({ n: "*" }).first()).toEqual({ n: 1 });
+  });
+
+  it("an approval whose review moves on while the report is written is refused (409), not released on a stale report", async () => {
+    const layoutId = (await createLayout(users.designer, projectId, { name: "Moving review bench", description: "" })).id;
+    const rev = await storeRevision(users.designer, layoutId, analysed("breadboard-three-seats.json"));
+    await requestRelease(users.designer, rev.id);
+    const thread = (await listThreads(users.manager, layoutId))[0];
+    const report = async () => {
+      await addComment(users.designer, thread.id, "one more thought while the checker approves");
+      return "# report";
+    };
+    await expect(approveRelease(users.checker, rev.id, report)).rejects.toMatchObject({ status: 409, message: expect.stringMatching(/changed while/) });
+    expect((await knex("releases").where({ revision_id: rev.id }).first()).approved_at).toBeNull();
+    await approveRelease(users.checker, rev.id, async () => "# report");
+    expect((await knex("releases").where({ revision_id: rev.id }).first()).approved_at).not.toBeNull();
+  });
+});
