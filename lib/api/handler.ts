@@ -68,6 +68,37 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.inf
   return result.data;
 }
 
+/**
+ * Reads a request body of at most `limit` bytes. A body declared larger (Content-Length) is refused before it
+ * is read; one sent without a length (chunked) is read only until it passes the limit, then the stream is
+ * cancelled and 413 thrown, so an endless upload never sits in memory.
+ */
+export async function readBodyLimited(req: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
+  const tooLarge = () => new AppError(413, `The file is larger than the ${Math.round(limit / 1048576)} MB limit. Nothing was stored.`, { errors: [{ location: "file", message: `larger than ${Math.round(limit / 1048576)} MB` }] });
+  if (Number(req.headers.get("content-length") ?? 0) > limit) throw tooLarge();
+  if (!req.body) return new Uint8Array(0);
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > limit) {
+      await reader.cancel().catch(() => undefined);
+      throw tooLarge();
+    }
+    chunks.push(value);
+  }
+  const out = new Uint8Array(total);
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out;
+}
+
 /** Reads a JSON request body or throws 422. */
 export async function jsonBody(req: Request): Promise<unknown> {
   try {

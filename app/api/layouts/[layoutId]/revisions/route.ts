@@ -1,6 +1,6 @@
 /** POST (designer): upload a layout file as a new revision (multipart: file, length, force). 201, or 422 with located errors. */
 import { requireRole } from "@/lib/auth/session";
-import { handle, idFrom, parseWith } from "@/lib/api/handler";
+import { handle, idFrom, parseWith, readBodyLimited } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/policy";
 import { uploadOptionsSchema, uploadRevision } from "@/lib/upload";
@@ -11,11 +11,11 @@ export const dynamic = "force-dynamic";
 export const POST = handle(async (req: Request, ctx: { params: Promise<{ layoutId: string }> }) => {
   const user = await requireRole(can.uploadRevision);
   const layoutId = await idFrom(ctx.params, "layoutId");
-  const declared = Number(req.headers.get("content-length") ?? 0);
-  if (declared > MAX_FILE_BYTES + 64 * 1024) throw new AppError(413, "The file is larger than the 5 MB limit. Nothing was stored.", { errors: [{ location: "file", message: "larger than 5 MB" }] });
+  // the form's own fields and boundaries get 64 kB beyond the file limit
+  const body = await readBodyLimited(req, MAX_FILE_BYTES + 64 * 1024);
   let form: FormData;
   try {
-    form = await req.formData();
+    form = await new Response(body, { headers: { "content-type": req.headers.get("content-type") ?? "" } }).formData();
   } catch {
     throw new AppError(422, "Send the file as multipart/form-data with a field named file.");
   }

@@ -4,7 +4,7 @@
  * engine's report and the revision's URL; 422 with located errors for a refused file.
  */
 import { requireRole } from "@/lib/auth/session";
-import { handle, idFrom, parseWith } from "@/lib/api/handler";
+import { handle, idFrom, parseWith, readBodyLimited } from "@/lib/api/handler";
 import { AppError } from "@/lib/errors";
 import { can } from "@/lib/policy";
 import { appLink } from "@/lib/mail/outbox";
@@ -26,10 +26,9 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ layoutI
   const layoutId = await idFrom(ctx.params, "layoutId");
   const encoding = encodingOf(req.headers.get("content-type") ?? "");
   if (!encoding) throw new AppError(415, "Send the file with Content-Type application/json, application/xml or text/csv.");
-  if (Number(req.headers.get("content-length") ?? 0) > MAX_FILE_BYTES) throw new AppError(413, "The file is larger than the 5 MB limit. Nothing was stored.", { errors: [{ location: "file", message: "larger than 5 MB" }] });
   const q = Object.fromEntries(new URL(req.url).searchParams);
   const options = parseWith(uploadOptionsSchema, { fileName: req.headers.get("x-file-name") || q.name || `upload.${encoding}`, encoding, length: q.length, force: q.force });
-  const bytes = new Uint8Array(await req.arrayBuffer());
+  const bytes = await readBodyLimited(req, MAX_FILE_BYTES);
   const result = await uploadRevision(user, layoutId, bytes, options);
   if (!result.ok) return Response.json({ error: "The file was refused; nothing was stored.", errors: result.errors }, { status: 422 });
   return Response.json({ ...result.report, warnings: result.warnings, revision: { id: result.revision.id, number: result.revision.number, url: appLink(`/layouts/${layoutId}?revision=${result.revision.id}`) } }, { status: 201 });
