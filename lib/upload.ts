@@ -8,6 +8,7 @@ import { forceUnits, lengthUnits } from "@/lib/layout/units";
 import { analyseInWorker } from "@/lib/worker/run-analysis";
 import { recordRefusedUpload, storeRevision, type RevisionSummaryDto } from "@/lib/db/revisions";
 import { db } from "@/lib/db/knex";
+import { overridesForLayout } from "@/lib/db/overrides";
 import type { SessionUser } from "@/lib/auth/session";
 import type { Report } from "@/lib/engine";
 
@@ -31,11 +32,13 @@ export async function uploadRevision(user: SessionUser, layoutId: number, bytes:
     await recordRefusedUpload(user, layoutId, options.fileName, bytes.byteLength, errors);
     return { ok: false, errors };
   }
-  const outcome = await analyseInWorker(bytes, { fileName: options.fileName, encoding: options.encoding as Encoding | undefined, length: options.length, force: options.force });
+  // the project's rule overrides in force now are the ones this revision is analysed (and stored) with
+  const overrides = await overridesForLayout(layoutId);
+  const outcome = await analyseInWorker(bytes, { fileName: options.fileName, encoding: options.encoding as Encoding | undefined, length: options.length, force: options.force, overrides });
   if (!outcome.ok) {
     await recordRefusedUpload(user, layoutId, options.fileName, bytes.byteLength, outcome.errors);
     return { ok: false, errors: outcome.errors };
   }
-  const revision = await storeRevision(user, layoutId, { fileName: options.fileName, encoding: outcome.encoding, raw: outcome.text, layout: outcome.layout, report: outcome.report });
+  const revision = await storeRevision(user, layoutId, { fileName: options.fileName, encoding: outcome.encoding, raw: outcome.text, layout: outcome.layout, report: outcome.report, overrides });
   return { ok: true, revision, report: outcome.report, warnings: outcome.warnings ?? [] };
 }

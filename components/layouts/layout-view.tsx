@@ -139,6 +139,20 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
                 {rev.report.foundation ? ` · foundation coupling ${Number(rev.report.foundation.maxPerMicrometre.toPrecision(4))} ${rev.report.units.force} per µm` : ""}
               </p>
             )}
+            {Object.keys(rev.overrides ?? {}).length > 0 && (
+              <p className="mt-3 text-xs" data-testid="revision-overrides">
+                Analysed with the project&apos;s rule overrides:{" "}
+                {Object.entries(rev.overrides).map(([rule, o], i) => (
+                  <span key={rule}>
+                    {i > 0 && "; "}
+                    <code>{rule}</code>
+                    {o.severity ? ` → ${o.severity}` : ""}
+                    {o.options ? ` (${Object.entries(o.options).map(([k, v]) => `${k} = ${JSON.stringify(v)}`).join(", ")})` : ""}
+                  </span>
+                ))}
+                {" "}(<Link href={`/projects/${layout.projectId}#rule-overrides`}>why, and who set them</Link>)
+              </p>
+            )}
             <LoadCaseTable report={rev.report} />
           </section>
 

@@ -5,6 +5,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
 import { ApiError, fetchJson } from "@/components/ui/fetch-json";
 import { LayoutStateBadge } from "./layout-state";
+import { RuleOverrides } from "./rule-overrides";
 import type { LayoutSummaryDto } from "@/lib/db/layouts";
 
 type LayoutRow = LayoutSummaryDto;
@@ -14,7 +15,7 @@ interface ProjectData {
   layouts: LayoutRow[];
 }
 
-export function ProjectView({ projectId, canCreate }: { projectId: number; canCreate: boolean }) {
+export function ProjectView({ projectId, canCreate, canOverride }: { projectId: number; canCreate: boolean; canOverride: boolean }) {
   const q = useQuery({ queryKey: ["project", projectId], queryFn: () => fetchJson<ProjectData>(`/api/projects/${projectId}`) });
   if (q.isPending) return <p role="status" className="text-sm text-graphite-soft">Loading project…</p>;
   if (q.isError) return <p role="alert" className="text-sm text-severity-error">{(q.error as Error).message}</p>;
@@ -68,6 +69,7 @@ export function ProjectView({ projectId, canCreate }: { projectId: number; canCr
           </table>
         </div>
       )}
+      <RuleOverrides projectId={projectId} canChange={canOverride} />
     </div>
   );
 }

@@ -12,6 +12,7 @@ import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import type { Encoding, Layout, LayoutError } from "@/lib/layout/model";
 import type { Report } from "@/lib/engine";
+import type { RuleOverride } from "@/rules";
 
 export interface RevisionSummaryDto {
   id: number;
@@ -24,6 +25,8 @@ export interface RevisionSummaryDto {
   uploadedBy: string;
   createdAt: string;
   release: { requestedBy: string; requestedAt: string; approvedBy: string | null; approvedAt: string | null } | null;
+  /** project rule overrides in force when this revision was analysed (empty: none) */
+  overrides: Record<string, RuleOverride>;
 }
 
 export interface RevisionDto extends RevisionSummaryDto {
@@ -58,6 +61,7 @@ function toSummary(r: Row): RevisionSummaryDto {
     conditioning: r.conditioning as number,
     uploadedBy: r.uploader as string,
     createdAt: iso(r.created_at),
+    overrides: r.overrides ? (JSON.parse(r.overrides as string) as Record<string, RuleOverride>) : {},
     release: r.requested_at
       ? {
           requestedBy: r.requester as string,
@@ -75,7 +79,7 @@ function revisionQuery() {
     .leftJoin("releases as r", "r.revision_id", "v.id")
     .leftJoin("users as rq", "rq.id", "r.requested_by")
     .leftJoin("users as ap", "ap.id", "r.approved_by")
-    .select("v.id", "v.layout_id", "v.number", "v.encoding", "v.file_name", "v.bodies", "v.contacts", "v.rank_", "v.freedoms", "v.redundancies", "v.conditioning", "v.created_at", "u.name as uploader", "r.requested_at", "r.approved_at", "rq.name as requester", "ap.name as approver");
+    .select("v.id", "v.layout_id", "v.number", "v.encoding", "v.file_name", "v.bodies", "v.contacts", "v.rank_", "v.freedoms", "v.redundancies", "v.conditioning", "v.overrides", "v.created_at", "u.name as uploader", "r.requested_at", "r.approved_at", "rq.name as requester", "ap.name as approver");
 }
 
 /** Revisions of a layout, oldest first. */
@@ -127,6 +131,8 @@ export interface StoreInput {
   raw: string;
   layout: Layout;
   report: Report;
+  /** the project rule overrides the report was made with */
+  overrides?: Record<string, RuleOverride>;
 }
 
 /** Stores an analysed revision with its findings in one transaction and carries the threads over. */
@@ -151,6 +157,7 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
       freedoms: c.freedoms,
       redundancies: c.redundancies,
       conditioning: input.report.conditioning,
+      overrides: input.overrides && Object.keys(input.overrides).length ? JSON.stringify(input.overrides) : null,
       uploaded_by: user.id,
     });
     const threads: Row[] = await trx("threads").where({ layout_id: layoutId }).forUpdate();

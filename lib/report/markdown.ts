@@ -26,6 +26,24 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   if (r.seating?.forces) lines.push(`| seating margin (first load case) | ${r.seating.margin === null ? "—" : num(r.seating.margin)} |`);
   if (r.foundation) lines.push(`| foundation coupling | ${num(r.foundation.maxPerMicrometre)} ${fu} per µm |`);
   lines.push("");
+  const overridden = Object.entries(rev.overrides);
+  if (overridden.length) {
+    // the reason and author of each override as it stood when the revision was analysed
+    const rows: { rule: string; reason: string; who: string }[] = await db()("rule_overrides as o")
+      .join("layouts as l", "l.project_id", "o.project_id")
+      .join("users as u", "u.id", "o.set_by")
+      .where("l.id", rev.layoutId)
+      .where("o.created_at", "<=", new Date(rev.createdAt))
+      .orderBy("o.id", "desc")
+      .select("o.rule", "o.reason", "u.name as who");
+    lines.push("## Rule overrides of the project (in force for this revision)", "", "| rule | severity | options | reason | set by |", "|---|---|---|---|---|");
+    for (const [rule, o] of overridden) {
+      const why = rows.find((x) => x.rule === rule);
+      const opts = o.options ? Object.entries(o.options).map(([k, v]) => `${k} = ${JSON.stringify(v)}`).join(", ") : "—";
+      lines.push(`| ${rule} | ${o.severity ?? "as defined"} | ${opts} | ${(why?.reason ?? "").replace(/\|/g, "/")} | ${why?.who ?? ""} |`);
+    }
+    lines.push("");
+  }
   if (r.seating?.forces) {
     lines.push("## Seated contact forces (first load case)", "", `| contact | force (${fu}) |`, "|---|---|");
     for (const [k, v] of Object.entries(r.seating.forces)) lines.push(`| ${k} | ${num(v)} |`);

@@ -3,6 +3,7 @@ import { parseLayoutBytes, type Encoding } from "@/lib/layout";
 import { detectEncoding } from "@/lib/layout";
 import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
 import { runEngine } from "@/lib/engine";
+import type { RuleOverride } from "@/rules";
 
 export interface WorkerRequest {
   bytes: Uint8Array;
@@ -10,6 +11,8 @@ export interface WorkerRequest {
   encoding?: Encoding;
   length?: LengthUnit;
   force?: ForceUnit;
+  /** the project's rule overrides in force */
+  overrides?: Record<string, RuleOverride>;
 }
 
 /** One task: the parse errors, or the layout with its report; an engine exception comes back as `crashed`. */
@@ -20,7 +23,7 @@ export function analyse(req: WorkerRequest) {
     if (!parsed.ok) return { ok: false, errors: parsed.errors };
     const text = new TextDecoder().decode(bytes);
     const encoding = req.encoding ?? detectEncoding(text, req.fileName);
-    const { report } = runEngine(parsed.layout);
+    const { report } = runEngine(parsed.layout, req.overrides ?? {});
     return { ok: true, layout: parsed.layout, report, encoding, text, warnings: parsed.warnings };
   } catch (err) {
     return { ok: false, crashed: true, message: (err as Error).message };

@@ -12,6 +12,7 @@ import { AppError } from "@/lib/errors";
 import type { Encoding, Layout, LayoutError } from "@/lib/layout/model";
 import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
 import type { Report } from "@/lib/engine";
+import type { RuleOverride } from "@/rules";
 
 export type AnalysisOutcome =
   | { ok: true; layout: Layout; report: Report; encoding: Encoding; text: string; warnings: string[] }
@@ -55,7 +56,7 @@ export async function closeAnalysisPool(): Promise<void> {
  */
 export async function analyseInWorker(
   bytes: Uint8Array,
-  options: { fileName: string; encoding?: Encoding; length?: LengthUnit; force?: ForceUnit },
+  options: { fileName: string; encoding?: Encoding; length?: LengthUnit; force?: ForceUnit; overrides?: Record<string, RuleOverride> },
   timeoutMs = Number(process.env.SIXFOLD_ANALYSIS_TIMEOUT_MS ?? 120_000),
 ): Promise<AnalysisOutcome> {
   const file = workerPath();

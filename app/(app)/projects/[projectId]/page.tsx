@@ -9,5 +9,5 @@ export const metadata: Metadata = { title: "Project" };
 export default async function ProjectPage({ params }: { params: Promise<{ projectId: string }> }) {
   const { projectId } = await params;
   const user = await requirePageUser(`/projects/${projectId}`);
-  return <ProjectView projectId={Number(projectId)} canCreate={allowed(user.role, "createLayout")} />;
+  return <ProjectView projectId={Number(projectId)} canCreate={allowed(user.role, "createLayout")} canOverride={allowed(user.role, "overrideRules")} />;
 }
