@@ -1,7 +1,7 @@
 /** One upload path for the browser and the token API: size check, worker analysis, store or record the refusal. */
 import "server-only";
 import { z } from "zod";
-import { AppError, forbidden, notFound } from "@/lib/errors";
+import { forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import { MAX_FILE_BYTES, type Encoding } from "@/lib/layout/model";
 import { forceUnits, lengthUnits } from "@/lib/layout/units";
@@ -26,9 +26,10 @@ export async function uploadRevision(user: SessionUser, layoutId: number, bytes:
   if (!allowed(user.role, "uploadRevision")) throw forbidden("Only designers upload revisions.");
   const layout = await db()("layouts").where({ id: layoutId }).first();
   if (!layout) throw notFound("That layout");
-  if (bytes.byteLength === 0) throw new AppError(422, "The file is empty.", { errors: [{ location: "file", message: "the file is empty" }] });
-  if (bytes.byteLength > MAX_FILE_BYTES) {
-    const errors = [{ location: "file", message: `the file is ${(bytes.byteLength / 1048576).toFixed(1)} MB; the limit is 5 MB` }];
+  // an empty or oversized file is refused like any other bad file: located errors, the attempt recorded
+  if (bytes.byteLength === 0 || bytes.byteLength > MAX_FILE_BYTES) {
+    const message = bytes.byteLength === 0 ? "the file is empty" : `the file is ${(bytes.byteLength / 1048576).toFixed(1)} MB; the limit is 5 MB`;
+    const errors = [{ location: "file", message }];
     await recordRefusedUpload(user, layoutId, options.fileName, bytes.byteLength, errors);
     return { ok: false, errors };
   }

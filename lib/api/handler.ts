@@ -17,7 +17,9 @@ export function isDatabaseUnreachable(err: unknown): boolean {
 /** Maps an error to a JSON response: known AppErrors keep status and message, anything else is logged and 500. */
 export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
-    return Response.json({ error: err.message, ...(err.details ? { details: err.details } : {}) }, { status: err.status });
+    // located errors of a refused file sit at the top level (`errors`) in every answer, as in a 422 refusal
+    const located = (err.details as { errors?: unknown } | undefined)?.errors;
+    return Response.json({ error: err.message, ...(err.details ? { details: err.details } : {}), ...(Array.isArray(located) ? { errors: located } : {}) }, { status: err.status });
   }
   if (isDatabaseUnreachable(err)) {
     const code = (err as { code?: string }).code ?? "";

@@ -101,10 +101,10 @@ describe("uploadRevision", () => {
     expect(await knex("revisions").count({ n: "*" }).first()).toEqual(before);
   });
 
-  it("refuses other roles (403) and an empty file (422)", async () => {
+  it("refuses other roles (403) and an empty file (located error, like any refused file)", async () => {
     const checker = await knex("users").where({ role: "checker" }).first();
     await expect(uploadRevision(checker, layoutId, new Uint8Array([1]), { fileName: "x.json" })).rejects.toMatchObject({ status: 403 });
-    await expect(uploadRevision(designer, layoutId, new Uint8Array(0), { fileName: "x.json" })).rejects.toMatchObject({ status: 422 });
+    expect(await uploadRevision(designer, layoutId, new Uint8Array(0), { fileName: "x.json" })).toEqual({ ok: false, errors: [{ location: "file", message: "the file is empty" }] });
   });
 
   it("reuses its analysis threads: six uploads in a row run on the same thread, not six new ones", async () => {
