@@ -1,9 +1,9 @@
 "use client";
 /** Project page body: layouts table with review state and, for designers, the new-layout form. */
 import Link from "next/link";
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useState } from "react";
-import { ApiError, fetchJson } from "@/components/ui/fetch-json";
+import { useQuery } from "@tanstack/react-query";
+import { fetchJson } from "@/components/ui/fetch-json";
+import { useFormPost } from "@/components/ui/use-form-post";
 import { LayoutStateBadge } from "./layout-state";
 import { RuleOverrides } from "./rule-overrides";
 import type { LayoutSummaryDto } from "@/lib/db/layouts";
@@ -75,21 +75,7 @@ export function ProjectView({ projectId, canCreate, canOverride }: { projectId: 
 }
 
 function NewLayoutForm({ projectId }: { projectId: number }) {
-  const qc = useQueryClient();
-  const [errors, setErrors] = useState<Record<string, string[]>>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const m = useMutation({
-    mutationFn: (body: { name: string; description: string }) => fetchJson(`/api/projects/${projectId}/layouts`, { method: "POST", body: JSON.stringify(body) }),
-    onSuccess: () => {
-      setErrors({});
-      setMessage(null);
-      return qc.invalidateQueries({ queryKey: ["project", projectId] });
-    },
-    onError: (err) => {
-      setErrors(err instanceof ApiError ? ((err.details as { fieldErrors?: Record<string, string[]> })?.fieldErrors ?? {}) : {});
-      setMessage((err as Error).message);
-    },
-  });
+  const { mutation: m, errors, message } = useFormPost<{ name: string; description: string }>(`/api/projects/${projectId}/layouts`, ["project", projectId]);
   return (
     <form
       aria-label="New layout"

@@ -1,8 +1,8 @@
 "use client";
 /** Project list from GET /api/projects with react-query, and the manager's create form. */
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useState } from "react";
-import { fetchJson, ApiError } from "@/components/ui/fetch-json";
+import { useQuery } from "@tanstack/react-query";
+import { fetchJson } from "@/components/ui/fetch-json";
+import { useFormPost } from "@/components/ui/use-form-post";
 import type { ProjectDto } from "@/lib/db/projects";
 
 type Project = ProjectDto;
@@ -64,24 +64,7 @@ export function ProjectsView({ canCreate, checkers }: { canCreate: boolean; chec
 }
 
 function CreateProjectForm({ checkers }: { checkers: { id: number; name: string }[] }) {
-  const qc = useQueryClient();
-  const [fieldErrors, setFieldErrors] = useState<Record<string, string[]>>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const mutation = useMutation({
-    mutationFn: (body: { name: string; description: string; checkerId: number | null }) =>
-      fetchJson<{ project: Project }>("/api/projects", { method: "POST", body: JSON.stringify(body) }),
-    onSuccess: () => {
-      setFieldErrors({});
-      setMessage(null);
-      return qc.invalidateQueries({ queryKey: ["projects"] });
-    },
-    onError: (err) => {
-      if (err instanceof ApiError) {
-        setFieldErrors((err.details as { fieldErrors?: Record<string, string[]> })?.fieldErrors ?? {});
-        setMessage(err.message);
-      } else setMessage((err as Error).message);
-    },
-  });
+  const { mutation, errors: fieldErrors, message } = useFormPost<{ name: string; description: string; checkerId: number | null }>("/api/projects", ["projects"]);
 
   function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();

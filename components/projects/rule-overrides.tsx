@@ -4,9 +4,10 @@
  * their history, and for administrators the form that sets or clears one. Later uploads in the project are
  * analysed with them; revisions already stored keep the overrides they were analysed with.
  */
-import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useQuery } from "@tanstack/react-query";
 import { useState } from "react";
-import { ApiError, fetchJson } from "@/components/ui/fetch-json";
+import { fetchJson } from "@/components/ui/fetch-json";
+import { useFormPost } from "@/components/ui/use-form-post";
 import { SeverityBadge } from "@/components/review/badges";
 import type { OverrideDto } from "@/lib/db/overrides";
 
@@ -84,23 +85,9 @@ export function RuleOverrides({ projectId, canChange }: { projectId: number; can
 }
 
 function OverrideForm({ projectId, data }: { projectId: number; data: OverridesData }) {
-  const qc = useQueryClient();
   const [rule, setRule] = useState(data.rules[0]?.id ?? "");
-  const [errors, setErrors] = useState<Record<string, string[]>>({});
-  const [message, setMessage] = useState<string | null>(null);
+  const { mutation: m, errors, message, setErrors, setMessage } = useFormPost<Record<string, unknown>>(`/api/projects/${projectId}/overrides`, ["overrides", projectId]);
   const meta = data.rules.find((r) => r.id === rule);
-  const m = useMutation({
-    mutationFn: (body: Record<string, unknown>) => fetchJson(`/api/projects/${projectId}/overrides`, { method: "POST", body: JSON.stringify(body) }),
-    onSuccess: () => {
-      setErrors({});
-      setMessage(null);
-      return qc.invalidateQueries({ queryKey: ["overrides", projectId] });
-    },
-    onError: (err) => {
-      setErrors(err instanceof ApiError ? ((err.details as { fieldErrors?: Record<string, string[]> })?.fieldErrors ?? {}) : {});
-      setMessage((err as Error).message);
-    },
-  });
   const inForce = data.current.some((o) => o.rule === rule);
   return (
     <form

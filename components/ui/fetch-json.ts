@@ -28,3 +28,8 @@ export async function fetchJson<T>(url: string, init: RequestInit = {}): Promise
   }
   return body as T;
 }
+
+/** The per-field messages of a 422 answer (`details.fieldErrors`), or none. */
+export function fieldErrorsOf(err: unknown): Record<string, string[]> {
+  return err instanceof ApiError ? ((err.details as { fieldErrors?: Record<string, string[]> } | undefined)?.fieldErrors ?? {}) : {};
+}

@@ -70,6 +70,7 @@ export async function approveRelease(user: SessionUser, revisionId: number, repo
   await transaction(async (trx) => {
     await lockLayout(trx, rev.layout_id, "update");
     if ((await reviewStamp(rev.layout_id, trx)) !== stamp) throw conflict("The review changed while the release was being approved (a comment, waiver or upload). Reload and approve again.");
+    if ((await blockingFindings(revisionId, trx)).length) throw conflict("An error finding was reopened a moment ago; the release stays blocked.");
     const n = await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").update({ approved_by: user.id, approved_at: trx.fn.now(3), report_md: md });
     if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });
