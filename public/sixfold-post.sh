@@ -20,6 +20,6 @@ case "$CODE" in
   201)
     if grep -q '"severity":"error"' "$OUT"; then echo "Sixfold: error findings in $(basename "$2")" >&2; cat "$OUT"; exit 1; fi
     echo "Sixfold: $(basename "$2") accepted, no error findings"; cat "$OUT"; exit 0 ;;
-  422) echo "Sixfold refused $(basename "$2"):" >&2; cat "$OUT" >&2; exit 2 ;;
+  422|413) echo "Sixfold refused $(basename "$2"):" >&2; cat "$OUT" >&2; exit 2 ;;
   *) echo "Sixfold answered HTTP $CODE" >&2; cat "$OUT" >&2; exit 3 ;;
 esac

@@ -13,7 +13,7 @@ every role reads. Send it as \`Authorization: Bearer sfx_…\`.
 
 | method and path | does | answers |
 |---|---|---|
-| \`POST /api/v1/layouts/{layoutId}/revisions\` | the layout file is the body; \`Content-Type\` picks the encoding (\`application/json\`, \`application/xml\`, \`text/csv\` with \`?length=mm&force=N\`); \`X-File-Name\` names it | **201** with the engine's report (the contract of the analysis page) plus \`revision.url\`; **422** \`{ errors: [{ location, message }] }\` for a refused file; 401 without a valid token, 403 for a role that may not upload |
+| \`POST /api/v1/layouts/{layoutId}/revisions\` | the layout file is the body; \`Content-Type\` picks the encoding (\`application/json\`, \`application/xml\`, \`text/csv\` with \`?length=mm&force=N\`); \`X-File-Name\` names it | **201** with the engine's report (the contract of the analysis page) plus \`revision.url\`; **422** \`{ errors: [{ location, message }] }\` for a refused file (an empty one included); **413** with the same \`errors\` for a body over 5 MB, cut off while it streams when no \`Content-Length\` is sent; **503** when the analysis queue is full or the database is unreachable (nothing stored; retry); 401 without a valid token, 403 for a role that may not upload |
 | \`GET /api/v1/layouts/{layoutId}/findings?status=open\` | findings of the newest revision; \`status\` = open, waived, resolved, reopened or all | **200** \`{ revision, findings: [{ id, rule, severity, title, status, contacts, loadCase, body }] }\` |
 
 The layout id is in the address of the layout page (\`/layouts/12\`).
