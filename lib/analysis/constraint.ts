@@ -150,8 +150,9 @@ export function analyseConstraint(layout: Layout): ConstraintAnalysis {
   const nullBasis = columns(right.V, r, n);
   const freeMotions = readableMotions(nullBasis, N).map((col) => toMotion(col, bodyIds, centroid, length));
 
-  // Left null space from the SVD of Aᵀ (same singular values, so the same rank r).
-  const selfStressBasis = m > 0 ? nullSpace(A.transpose(), r) : new Matrix(0, 0);
+  // Left null space from the SVD of Aᵀ (same singular values, so the same rank r). With no redundancy
+  // (r = m, every exactly constrained mount) it is empty, and the second SVD is skipped.
+  const selfStressBasis = m === 0 ? new Matrix(0, 0) : redundancies === 0 ? new Matrix(m, 0) : nullSpace(A.transpose(), r);
   const selfStress = canonicalSelfStress(selfStressBasis, layout.contacts.map((k) => k.id));
 
   return {
