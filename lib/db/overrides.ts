@@ -14,18 +14,21 @@ import type { SessionUser } from "@/lib/auth/session";
 import { rules, type RuleOverride } from "@/rules";
 import type { Severity } from "@/rules/types";
 
+const reason = z.string().trim().min(10, "Give the reason in at least 10 characters.").max(2000);
+const rule = z.string().trim().min(1, "Pick a rule.");
+
 export const overrideInputSchema = z.discriminatedUnion("action", [
   z.object({
     action: z.literal("set"),
-    rule: z.string().trim().min(1, "Pick a rule."),
+    rule,
     severity: z.enum(["error", "warning", "info"]).nullable().default(null),
     options: z.record(z.string(), z.unknown()).nullable().default(null),
-    reason: z.string().trim().min(10, "Give the reason in at least 10 characters.").max(2000),
+    reason,
   }),
   z.object({
     action: z.literal("clear"),
-    rule: z.string().trim().min(1, "Pick a rule."),
-    reason: z.string().trim().min(10, "Give the reason in at least 10 characters.").max(2000),
+    rule,
+    reason,
   }),
 ]);
 export type OverrideInput = z.infer<typeof overrideInputSchema>;
@@ -113,7 +116,7 @@ export async function changeOverride(user: SessionUser, projectId: number, input
   } else {
     const options = input.options && Object.keys(input.options).length ? checkedOptions(input.rule, input.options) : null;
     const severity = input.severity && input.severity !== meta.severity ? input.severity : null;
-    if (!severity && !options) throw invalid("Change the severity or give options; an override that changes nothing is not stored.", { fieldErrors: { severity: ["Pick a severity other than the rule's own, or give options."] } });
+    if (!severity && !options) throw invalid("Change the severity or give options; an override that changes nothing is not stored (to return to the rule's own setting, clear its override).", { fieldErrors: { severity: ["Pick a severity other than the rule's own, or give options."] } });
     row = { project_id: projectId, rule: input.rule, severity, options: options ? JSON.stringify(options) : null, cleared: false, reason: input.reason, set_by: user.id };
   }
   const [id] = await db()("rule_overrides").insert(row);

@@ -130,7 +130,8 @@ async function main() {
   let layoutId = 0;
   const knex = knexLib(connectionConfig());
   try {
-    layoutId = await setUp(designer, manager);
+    layoutId = await createRunLayout(designer, manager);
+    await firstRevision(layoutId, designer);
     await drive(layoutId, designer, checker, manager, knex);
   } finally {
     agent.destroy();
@@ -143,16 +144,19 @@ async function main() {
 const auth = (t: string) => ({ authorization: `Bearer ${t}` });
 const files = ["examples/breadboard-three-seats.json", "examples/breadboard-four-feet.json"].map((f) => readFileSync(f, "utf8"));
 
-/** The run's own layout, with a first revision (four feet: several findings, so several threads). */
-async function setUp(designer: string, manager: string): Promise<number> {
+/** The run's own layout (removed at the end, whatever happens after it exists). */
+async function createRunLayout(designer: string, manager: string): Promise<number> {
   const projects = (await (await fetch(`${base}/api/projects`, { headers: auth(manager) })).json()) as { projects: { id: number; name: string }[] };
   const project = projects.projects.find((p) => p.name === "Interferometer breadboard") ?? projects.projects[0];
   const res = await fetch(`${base}/api/projects/${project.id}/layouts`, { method: "POST", headers: { ...auth(designer), "content-type": "application/json" }, body: JSON.stringify({ name: `Load run ${runId}`, description: "Created by npm run load; removed at its end." }) });
   if (res.status !== 201) throw new Error(`could not create the load layout: ${res.status} ${await res.text()}`);
-  const layoutId = ((await res.json()) as { layout: { id: number } }).layout.id;
+  return ((await res.json()) as { layout: { id: number } }).layout.id;
+}
+
+/** Four feet first: several findings, so several threads to read and comment on. */
+async function firstRevision(layoutId: number, designer: string): Promise<void> {
   const up = await fetch(`${base}/api/v1/layouts/${layoutId}/revisions`, { method: "POST", headers: { ...auth(designer), "content-type": "application/json", "x-file-name": "four-feet.json" }, body: files[1] });
   if (up.status !== 201) throw new Error(`could not upload the first revision: ${up.status}`);
-  return layoutId;
 }
 
 async function drive(layoutId: number, designer: string, checker: string, manager: string, knex: knexLib.Knex) {
