@@ -1,6 +1,16 @@
 /** The whole check of one layout: analysis + rules → the machine-readable report of analysis.md §8. */
 import type { Layout, Vec3 } from "@/lib/layout/model";
-import { analyseLayout, type CouplingResult, type EngineAnalysis, type HertzEntry, type Motion, type PointMotion, type SeatingResult } from "@/lib/analysis";
+import {
+  analyseLayout,
+  type CouplingResult,
+  type EngineAnalysis,
+  type FlexureEntry,
+  type HertzEntry,
+  type Motion,
+  type PointMotion,
+  type PointRepeatability,
+  type SeatingResult,
+} from "@/lib/analysis";
 import { runRules, type RuleOverride } from "@/rules";
 import type { Finding } from "@/rules/types";
 
@@ -32,6 +42,15 @@ export interface Report {
   loadCases: { id: string; gravity: Vec3; seating: SeatingReport | null; hertz: Record<string, HertzEntry>; unloaded: string[] }[];
   points: Record<string, PointMotion>;
   couplings: CouplingResult[];
+  flexures: FlexureEntry[];
+  thermal: {
+    swingK: number | null;
+    undetermined: boolean;
+    bodies: Record<string, { centre: Vec3 | null }>;
+    forcesPerK: Record<string, number> | null;
+    points: Record<string, { driftUmPerK: Vec3 }>;
+  } | null;
+  repeatability: { undetermined: boolean; points: Record<string, PointRepeatability> } | null;
   findings: Finding[];
 }
 
@@ -57,6 +76,17 @@ export function buildReport(analysis: EngineAnalysis, findings: Finding[]): Repo
     loadCases: st.cases.map((k) => ({ id: k.id, gravity: k.gravity, seating: k.seating, hertz: k.hertz, unloaded: k.unloaded })),
     points: st.points,
     couplings: analysis.couplings,
+    flexures: analysis.flexures,
+    thermal: analysis.thermal
+      ? {
+          swingK: analysis.thermal.swingK,
+          undetermined: analysis.thermal.undetermined,
+          bodies: analysis.thermal.bodies,
+          forcesPerK: analysis.thermal.forcesPerK,
+          points: analysis.thermal.points,
+        }
+      : null,
+    repeatability: analysis.repeatability,
     findings,
   };
 }

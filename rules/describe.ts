@@ -13,6 +13,26 @@ export function featuresOf(layout: Layout, contactIds: string[]): string[] {
   return [...set].sort();
 }
 
+/**
+ * Names of the given rows as a reviewer knows them: a flexure's rows collapse into the flexure's id
+ * ("leaf-front" rather than "leaf-front.a, leaf-front.b"); contacts keep their own ids. Order kept.
+ */
+export function rowNames(layout: Layout, rowIds: string[]): string[] {
+  const byId = new Map(layout.contacts.map((c) => [c.id, c]));
+  const out: string[] = [];
+  for (const id of rowIds) {
+    const name = byId.get(id)?.flexure ?? id;
+    if (!out.includes(name)) out.push(name);
+  }
+  return out;
+}
+
+/** One row's label for tables: the contact id, or "row of flexure X" for a generated row. */
+export function rowLabel(layout: Layout, rowId: string): string {
+  const f = layout.contacts.find((c) => c.id === rowId)?.flexure;
+  return f && f !== rowId ? `${rowId} (flexure ${f})` : f ? `${rowId} (flexure)` : rowId;
+}
+
 /** Bodies that move in a motion. */
 export function movingBodies(m: Motion): string[] {
   return Object.entries(m.screws).filter(([, s]) => s.kind !== "still").map(([id]) => id);

@@ -8,8 +8,11 @@ import functionalPointSensitivity from "./functional-point-sensitivity";
 import loadDrivesFreedom from "./load-drives-freedom";
 import lowSeatingMargin from "./low-seating-margin";
 import missingData from "./missing-data";
+import pointRepeatability from "./point-repeatability";
 import redundantConstraint from "./redundant-constraint";
 import seatLiftOff from "./seat-lift-off";
+import thermalDrift from "./thermal-drift";
+import thermalMismatch from "./thermal-mismatch";
 import weakConstraint from "./weak-constraint";
 import { CAUTION, needsCaution } from "./describe";
 import { fingerprintOf, type Finding, type Rule, type Severity } from "./types";
@@ -25,8 +28,11 @@ export const rules: Rule<any>[] = [
   loadDrivesFreedom,
   lowSeatingMargin,
   missingData,
+  pointRepeatability,
   redundantConstraint,
   seatLiftOff,
+  thermalDrift,
+  thermalMismatch,
   weakConstraint,
 ]; // eslint-disable-line @typescript-eslint/no-explicit-any
 
@@ -44,8 +50,8 @@ export function runRules(analysis: EngineAnalysis, overrides: Record<string, Rul
   for (const rule of rules) {
     const o = overrides[rule.meta.id] ?? {};
     const options = rule.meta.options.parse(o.options ?? {});
-    const severity = o.severity ?? rule.meta.severity;
     for (const d of rule.check({ layout: analysis.layout, analysis, options })) {
+      const severity = o.severity ?? d.severity ?? rule.meta.severity;
       findings.push({
         rule: rule.meta.id,
         severity,

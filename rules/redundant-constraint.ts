@@ -1,7 +1,7 @@
 /** redundant-constraint: a self-stress state exists (one finding per state of the canonical basis). */
 import { z } from "zod";
 import { defineRule } from "./types";
-import { featuresOf } from "./describe";
+import { featuresOf, rowLabel, rowNames } from "./describe";
 import { num } from "@/lib/analysis/format";
 
 export default defineRule({
@@ -18,15 +18,16 @@ export default defineRule({
     const { selfStress, selfStressDimension } = analysis.constraint;
     return selfStress.map((state) => {
       const contacts = Object.keys(state.forces);
-      const others = contacts.filter((c) => c !== state.pivot);
+      const [pivotName] = rowNames(layout, [state.pivot]);
+      const others = rowNames(layout, contacts).filter((c) => c !== pivotName);
       const features = featuresOf(layout, contacts);
       const table = ["| contact | feature | coefficient |", "|---|---|---|"];
       for (const c of contacts) {
         const f = layout.contacts.find((k) => k.id === c)?.feature ?? "—";
-        table.push(`| ${c} | ${f} | ${num(state.forces[c])} |`);
+        table.push(`| ${rowLabel(layout, c)} | ${f} | ${num(state.forces[c])} |`);
       }
       return {
-        title: `Over-constrained loop: ${state.pivot} fights ${others.length > 8 ? `${others.slice(0, 6).join(", ")} and ${others.length - 6} more` : others.join(", ") || "itself"}`,
+        title: `Over-constrained loop: ${pivotName} fights ${others.length > 8 ? `${others.slice(0, 6).join(", ")} and ${others.length - 6} more` : others.join(", ") || "itself"}`,
         body: [
           `These contact forces (per unit force at the pivot ${state.pivot}) balance each other with no load, so a misfit or a deforming base locks them into the part.${selfStressDimension > selfStress.length ? ` (${selfStressDimension} states in all; the first ${selfStress.length} are listed.)` : ""}`,
           "",

@@ -34,6 +34,8 @@ export interface FindingDraft {
   loadCase?: string;
   /** further ids that identify this finding (beyond contacts, features and bodies) */
   keys?: string[];
+  /** a severity other than the rule's default, for rules that escalate (a project override still wins) */
+  severity?: Severity;
 }
 
 export interface Finding {

@@ -70,6 +70,8 @@ export interface PointMotion {
 export interface StaticsResult {
   hasLoad: boolean;
   stiffnessSource: StiffnessSource;
+  /** per row, when every row (contact or flexure) has a file stiffness */
+  fileStiffness: number[] | null;
   cases: CaseResult[];
   foundation: FoundationResult | null;
   points: Record<string, PointMotion>;
@@ -85,15 +87,24 @@ interface Ctx {
   toMetre: number;
   toNewton: number;
   bodyIndex: Map<string, number>;
-  materials: Map<string, { E: number; nu: number; allowable?: number }>;
+  materials: Map<string, { E?: number; nu?: number; allowable?: number }>;
 }
 
 function materialTable(layout: Layout) {
-  const map = new Map<string, { E: number; nu: number; allowable?: number }>();
+  const map = new Map<string, { E?: number; nu?: number; allowable?: number }>();
   for (const m of [...builtinMaterials, ...layout.materials]) {
-    map.set(m.id, { E: m.youngsModulusGPa * 1e9, nu: m.poissonRatio, allowable: m.allowableContactPressureMPa });
+    map.set(m.id, { E: m.youngsModulusGPa === undefined ? undefined : m.youngsModulusGPa * 1e9, nu: m.poissonRatio, allowable: m.allowableContactPressureMPa });
   }
   return map;
+}
+
+/** A contact's Hertz data is usable when both materials give Young's modulus and Poisson's ratio. */
+export function hertzUsable(layout: Layout, contact: Layout["contacts"][number]): boolean {
+  if (!contact.hertz) return false;
+  return contact.hertz.materials.every((id) => {
+    const m = layout.materials.find((x) => x.id === id) ?? builtinMaterials.find((x) => x.id === id);
+    return m?.youngsModulusGPa !== undefined && m.poissonRatio !== undefined;
+  });
 }
 
 /** Scaled wrench of one load case (file force units). */
@@ -248,6 +259,7 @@ function hertzAt(ctx: Ctx, i: number, forceFile: number): HertzResult | null {
   if (!h || !(forceFile > 0)) return null;
   const m1 = ctx.materials.get(h.materials[0])!;
   const m2 = ctx.materials.get(h.materials[1])!;
+  if (m1.E === undefined || m1.nu === undefined || m2.E === undefined || m2.nu === undefined) return null;
   const r = (x: number | null) => (x === null ? null : x * ctx.toMetre);
   try {
     return hertzContact({
@@ -376,7 +388,7 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
   const source: StiffnessSource =
     m > 0 && layout.contacts.every((k) => k.stiffness !== undefined)
       ? "file"
-      : m > 0 && layout.contacts.every((k) => k.hertz)
+      : m > 0 && layout.contacts.every((k) => hertzUsable(layout, k))
         ? "hertz"
         : "equal";
   const caseDefs = layout.loadCases ?? [{ id: "default", gravity: layout.gravity, loads: undefined }];
@@ -458,5 +470,6 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
       for (const pt of layout.points) points[pt.id].seatedUm = scale(pointDisplacement(ctx, pt.body, pt.point, first.displacement), 1 / perUm);
     }
   }
-  return { hasLoad, stiffnessSource: source, cases, foundation, points };
+  const fileStiffness = source === "file" ? layout.contacts.map((k) => k.stiffness!) : null;
+  return { hasLoad, stiffnessSource: source, fileStiffness, cases, foundation, points };
 }

@@ -8,13 +8,18 @@ export interface Body {
   id: string;
   mass?: number;
   centerOfMass?: Vec3;
+  /** material id (built-in or `materials[]`): its expansion coefficient drives the temperature analysis */
+  material?: string;
 }
 
+/** Every value besides the id is optional: a check that needs a missing one is skipped (missing-data). */
 export interface Material {
   id: string;
-  youngsModulusGPa: number;
-  poissonRatio: number;
+  youngsModulusGPa?: number;
+  poissonRatio?: number;
   allowableContactPressureMPa?: number;
+  /** linear expansion coefficient, 1/K */
+  expansionPerK?: number;
 }
 
 export interface HertzData {
@@ -34,7 +39,44 @@ export interface Contact {
   sense: "unilateral" | "bilateral";
   stiffness?: number;
   hertz?: HertzData;
+  /** 1σ of where the seat lands along its normal from one seating to the next, file length units */
+  scatter?: number;
+  /** set on the rows the engine generates from a flexure element (analysis.md §10): the flexure's id */
+  flexure?: string;
 }
+
+interface FlexureCommon {
+  id: string;
+  body: string;
+  on: string;
+  feature?: string;
+  material?: string;
+  scatter?: number;
+}
+
+/** A wire (rod) flexure: one row along itself. */
+export interface WireFlexure extends FlexureCommon {
+  kind: "wire";
+  /** the end on `on` */
+  from: Vec3;
+  /** the end on `body` */
+  to: Vec3;
+  diameter?: number;
+}
+
+/** A blade (leaf) flexure: three rows in its own plane. */
+export interface BladeFlexure extends FlexureCommon {
+  kind: "blade";
+  /** centre of the edge clamped to `on` */
+  root: Vec3;
+  /** centre of the edge clamped to `body` */
+  tip: Vec3;
+  widthDirection: Vec3;
+  width: number;
+  thickness?: number;
+}
+
+export type Flexure = WireFlexure | BladeFlexure;
 
 export interface Load {
   id: string;
@@ -48,6 +90,8 @@ export interface FunctionalPoint {
   id: string;
   body: string;
   point: Vec3;
+  /** the largest error motion the point may have, file length units */
+  allowance?: number;
 }
 
 export interface LoadCase {
@@ -66,9 +110,17 @@ export interface Layout {
   bodies: Body[];
   materials: Material[];
   contacts: Contact[];
+  /** flexure elements; the engine expands them into rows after the contacts (analysis.md §10) */
+  flexures?: Flexure[];
   loads: Load[];
   points: FunctionalPoint[];
   loadCases?: LoadCase[];
+  /** material id of the base (ground) */
+  groundMaterial?: string;
+  /** uniform temperature change the mount must ride through, K (> 0) */
+  temperatureSwing?: number;
+  /** scatter of contacts and flexures that give none, file length units */
+  defaultScatter?: number;
 }
 
 /** One reason a file was refused, with where in the file it is. */

@@ -6,9 +6,9 @@ import { validateRaw } from "./schema";
 import type { ForceUnit, LengthUnit } from "./units";
 
 const required = ["id", "x", "y", "z", "nx", "ny", "nz"] as const;
-const optional = ["body", "on", "sense", "feature", "stiffness"] as const;
+const optional = ["body", "on", "sense", "feature", "stiffness", "scatter"] as const;
 const known = new Set<string>([...required, ...optional]);
-const numeric = new Set(["x", "y", "z", "nx", "ny", "nz", "stiffness"]);
+const numeric = new Set(["x", "y", "z", "nx", "ny", "nz", "stiffness", "scatter"]);
 
 export interface CsvOptions {
   length?: LengthUnit;
@@ -74,6 +74,7 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
       feature: c.feature,
       sense: c.sense,
       stiffness: c.stiffness,
+      scatter: c.scatter,
       point: [c.x, c.y, c.z],
       normal: [c.nx, c.ny, c.nz],
     });

@@ -16,6 +16,23 @@ interface XmlNode {
 
 /** attribute name → JSON key, and how to read it */
 type Kind = "text" | "number" | "vec3" | "radii" | "idlist2" | "idlist";
+const flexureFields: Record<string, [string, Kind]> = {
+  id: ["id", "text"],
+  kind: ["kind", "text"],
+  body: ["body", "text"],
+  on: ["on", "text"],
+  feature: ["feature", "text"],
+  material: ["material", "text"],
+  scatter: ["scatter", "number"],
+  from: ["from", "vec3"],
+  to: ["to", "vec3"],
+  diameter: ["diameter", "number"],
+  root: ["root", "vec3"],
+  tip: ["tip", "vec3"],
+  "width-direction": ["widthDirection", "vec3"],
+  width: ["width", "number"],
+  thickness: ["thickness", "number"],
+};
 const fields: Record<string, Record<string, [string, Kind]>> = {
   "mount-layout": {
     format: ["format", "text"],
@@ -23,13 +40,17 @@ const fields: Record<string, Record<string, [string, Kind]>> = {
     gravity: ["gravity", "vec3"],
     tolerance: ["tolerance", "number"],
     "intended-freedoms": ["intendedFreedoms", "number"],
+    "ground-material": ["groundMaterial", "text"],
+    "temperature-swing": ["temperatureSwing", "number"],
+    "default-scatter": ["defaultScatter", "number"],
   },
-  body: { id: ["id", "text"], mass: ["mass", "number"], "center-of-mass": ["centerOfMass", "vec3"] },
+  body: { id: ["id", "text"], mass: ["mass", "number"], "center-of-mass": ["centerOfMass", "vec3"], material: ["material", "text"] },
   material: {
     id: ["id", "text"],
     "youngs-modulus-gpa": ["youngsModulusGPa", "number"],
     "poisson-ratio": ["poissonRatio", "number"],
     "allowable-contact-pressure-mpa": ["allowableContactPressureMPa", "number"],
+    "expansion-per-k": ["expansionPerK", "number"],
   },
   contact: {
     id: ["id", "text"],
@@ -40,16 +61,19 @@ const fields: Record<string, Record<string, [string, Kind]>> = {
     normal: ["normal", "vec3"],
     sense: ["sense", "text"],
     stiffness: ["stiffness", "number"],
+    scatter: ["scatter", "number"],
   },
+  flexure: flexureFields,
   hertz: { "angle-deg": ["angleDeg", "number"], materials: ["materials", "idlist2"] },
   load: { id: ["id", "text"], body: ["body", "text"], force: ["force", "vec3"], point: ["point", "vec3"], moment: ["moment", "vec3"] },
-  point: { id: ["id", "text"], body: ["body", "text"], at: ["point", "vec3"] },
+  point: { id: ["id", "text"], body: ["body", "text"], at: ["point", "vec3"], allowance: ["allowance", "number"] },
   "load-case": { id: ["id", "text"], gravity: ["gravity", "vec3"], loads: ["loads", "idlist"] },
 };
 const listKey: Record<string, string> = {
   body: "bodies",
   material: "materials",
   contact: "contacts",
+  flexure: "flexures",
   load: "loads",
   point: "points",
   "load-case": "loadCases",

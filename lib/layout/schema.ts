@@ -3,6 +3,7 @@ import { z } from "zod";
 import { FORMAT, GROUND, MAX_BODIES, MAX_CONTACTS, type Layout, type LayoutError, type ParseResult } from "./model";
 import { forceUnits, lengthUnits } from "./units";
 import { builtinMaterialIds } from "./materials";
+import { bladeFrame, flexureLength, flexureRowIds } from "./flexures";
 
 const finite = z.number({ error: "must be a number" }).refine(Number.isFinite, { error: "must be a finite number" });
 const positive = finite.refine((v) => v > 0, { error: "must be greater than zero" });
@@ -19,17 +20,21 @@ const label = z
   .regex(/^[^\u0000-\u001f]+$/, { error: "must not contain control characters" });
 const radius = z.union([finite.refine((v) => v !== 0, { error: "a radius of zero is not allowed (use null for flat)" }), z.null()]);
 
+const nonNegative = finite.refine((v) => v >= 0, { error: "must not be negative" });
+
 const bodySchema = z.object({
   id: identifier,
   mass: positive.optional(),
   centerOfMass: vec3.optional(),
+  material: identifier.optional(),
 });
 
 const materialSchema = z.object({
   id: identifier,
-  youngsModulusGPa: positive,
-  poissonRatio: finite.refine((v) => v > -1 && v < 0.5, { error: "must lie between -1 and 0.5" }),
+  youngsModulusGPa: positive.optional(),
+  poissonRatio: finite.refine((v) => v > -1 && v < 0.5, { error: "must lie between -1 and 0.5" }).optional(),
   allowableContactPressureMPa: positive.optional(),
+  expansionPerK: nonNegative.optional(),
 });
 
 const hertzSchema = z.object({
@@ -50,7 +55,28 @@ const contactSchema = z.object({
   sense: z.enum(["unilateral", "bilateral"], { error: "must be unilateral or bilateral" }).default("unilateral"),
   stiffness: positive.optional(),
   hertz: hertzSchema.optional(),
+  scatter: nonNegative.optional(),
 });
+
+const flexureCommon = {
+  id: identifier,
+  body: identifier,
+  on: identifier.default(GROUND),
+  feature: label.optional(),
+  material: identifier.optional(),
+  scatter: nonNegative.optional(),
+};
+const wireSchema = z.object({ ...flexureCommon, kind: z.literal("wire"), from: vec3, to: vec3, diameter: positive.optional() });
+const bladeSchema = z.object({
+  ...flexureCommon,
+  kind: z.literal("blade"),
+  root: vec3,
+  tip: vec3,
+  widthDirection: vec3,
+  width: positive,
+  thickness: positive.optional(),
+});
+const flexureSchema = z.discriminatedUnion("kind", [wireSchema, bladeSchema], { error: 'kind must be "wire" or "blade"' });
 
 const loadSchema = z.object({
   id: identifier,
@@ -60,7 +86,7 @@ const loadSchema = z.object({
   moment: vec3.optional(),
 });
 
-const pointSchema = z.object({ id: identifier, body: identifier, point: vec3 });
+const pointSchema = z.object({ id: identifier, body: identifier, point: vec3, allowance: positive.optional() });
 
 export const rawLayoutSchema = z.object({
   format: z.literal(FORMAT, { error: `must be "${FORMAT}"` }),
@@ -77,12 +103,16 @@ export const rawLayoutSchema = z.object({
   bodies: z.array(bodySchema, { error: "must be a list of bodies" }).min(1, { error: "must declare at least one body" }).max(MAX_BODIES, { error: `has more than ${MAX_BODIES} bodies` }),
   materials: z.array(materialSchema).max(200, { error: "has more than 200 materials" }).default([]),
   contacts: z.array(contactSchema, { error: "must be a list of contacts" }).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} contacts` }),
+  flexures: z.array(flexureSchema, { error: "must be a list of flexures" }).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} flexures` }).default([]),
   loads: z.array(loadSchema).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} loads` }).default([]),
   points: z.array(pointSchema).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} points` }).default([]),
   loadCases: z
     .array(z.object({ id: identifier, gravity: vec3.optional(), loads: z.array(identifier).optional() }))
     .max(100, { error: "has more than 100 load cases" })
     .optional(),
+  groundMaterial: identifier.optional(),
+  temperatureSwing: positive.optional(),
+  defaultScatter: nonNegative.optional(),
 });
 
 const itemShapes: Record<string, z.ZodObject> = {
@@ -107,6 +137,13 @@ function unknownFieldWarnings(raw: unknown, locate: (ptr: string) => string): st
   const r = raw as Record<string, unknown>;
   check(r, Object.keys(rawLayoutSchema.shape), "");
   check(r.units, ["length", "force"], "/units");
+  if (Array.isArray(r.flexures)) {
+    r.flexures.forEach((item, i) => {
+      const kind = (item as Record<string, unknown> | null)?.kind;
+      const shape = kind === "wire" ? wireSchema : kind === "blade" ? bladeSchema : null;
+      if (shape) check(item, Object.keys(shape.shape), `/flexures/${i}`);
+    });
+  }
   for (const [list, schema] of Object.entries(itemShapes)) {
     if (!Array.isArray(r[list])) continue;
     (r[list] as unknown[]).forEach((item, i) => {
@@ -202,6 +239,31 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string): LayoutErro
       if ([a1, a2, b1, b2].every((r) => r === null)) err(`/contacts/${i}/hertz/radii`, "two flat surfaces do not make a point contact");
     }
   });
+  layout.bodies.forEach((b, i) => {
+    if (b.material !== undefined && !knownMaterial(b.material)) err(`/bodies/${i}/material`, `material '${b.material}' is neither built in nor declared in materials`);
+  });
+  if (layout.groundMaterial !== undefined && !knownMaterial(layout.groundMaterial)) {
+    err("/groundMaterial", `material '${layout.groundMaterial}' is neither built in nor declared in materials`);
+  }
+  const rowIds = new Map<string, string>(layout.contacts.map((c, i) => [c.id, `/contacts/${i}`]));
+  const flexures = layout.flexures ?? [];
+  flexures.forEach((f, i) => {
+    const at = `/flexures/${i}`;
+    if (f.body === GROUND) err(`${at}/body`, "body may not be 'ground' (put ground in 'on')");
+    else if (!bodies.has(f.body)) err(`${at}/body`, `body '${f.body}' is not declared`);
+    if (f.on !== GROUND && !bodies.has(f.on)) err(`${at}/on`, `body '${f.on}' is not declared`);
+    if (f.on === f.body) err(`${at}/on`, `flexure '${f.id}' cannot join body '${f.body}' to itself`);
+    if (f.material !== undefined && !knownMaterial(f.material)) err(`${at}/material`, `material '${f.material}' is neither built in nor declared in materials`);
+    if (!(flexureLength(f) > 0)) err(`${at}/${f.kind === "wire" ? "to" : "tip"}`, `flexure '${f.id}' has zero length (${f.kind === "wire" ? "from and to" : "root and tip"} coincide)`);
+    else if (f.kind === "blade" && !bladeFrame(f)) err(`${at}/widthDirection`, `widthDirection of blade '${f.id}' is zero or parallel to its length (tip − root)`);
+    const ids = f.kind === "wire" ? [f.id] : [f.id, ...flexureRowIds(f)];
+    for (const id of ids) {
+      if (rowIds.has(id)) err(`${at}/id`, `flexure '${f.id}'${id === f.id ? "" : ` (row ${id})`} collides with the id at ${rowIds.get(id)}`);
+      else rowIds.set(id, at);
+    }
+  });
+  const rows = layout.contacts.length + flexures.reduce((n, f) => n + (f.kind === "wire" ? 1 : 3), 0);
+  if (rows > MAX_CONTACTS) err("/flexures", `contacts and flexure rows together number ${rows}; the limit is ${MAX_CONTACTS}`);
   layout.loads.forEach((l, i) => {
     if (!bodies.has(l.body)) err(`/loads/${i}/body`, `body '${l.body}' is not declared`);
   });

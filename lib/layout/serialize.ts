@@ -39,12 +39,15 @@ export function toXml(layout: Layout): string {
       ["gravity", v3(layout.gravity)],
       ["tolerance", layout.tolerance],
       ["intended-freedoms", layout.intendedFreedoms || undefined],
+      ["ground-material", layout.groundMaterial],
+      ["temperature-swing", layout.temperatureSwing],
+      ["default-scatter", layout.defaultScatter],
     ])}>`,
   );
-  for (const b of layout.bodies) out.push(`  <body ${attrs([["id", b.id], ["mass", b.mass], ["center-of-mass", b.centerOfMass && v3(b.centerOfMass)]])}/>`);
+  for (const b of layout.bodies) out.push(`  <body ${attrs([["id", b.id], ["mass", b.mass], ["center-of-mass", b.centerOfMass && v3(b.centerOfMass)], ["material", b.material]])}/>`);
   for (const m of layout.materials)
     out.push(
-      `  <material ${attrs([["id", m.id], ["youngs-modulus-gpa", m.youngsModulusGPa], ["poisson-ratio", m.poissonRatio], ["allowable-contact-pressure-mpa", m.allowableContactPressureMPa]])}/>`,
+      `  <material ${attrs([["id", m.id], ["youngs-modulus-gpa", m.youngsModulusGPa], ["poisson-ratio", m.poissonRatio], ["allowable-contact-pressure-mpa", m.allowableContactPressureMPa], ["expansion-per-k", m.expansionPerK]])}/>`,
     );
   for (const c of layout.contacts) {
     const a = attrs([
@@ -56,6 +59,7 @@ export function toXml(layout: Layout): string {
       ["normal", v3(c.normal)],
       ["sense", c.sense === "bilateral" ? "bilateral" : undefined],
       ["stiffness", c.stiffness],
+      ["scatter", c.scatter],
     ]);
     if (!c.hertz) out.push(`  <contact ${a}/>`);
     else {
@@ -65,8 +69,15 @@ export function toXml(layout: Layout): string {
       out.push("  </contact>");
     }
   }
+  for (const f of layout.flexures ?? []) {
+    const ends: [string, string | number | undefined][] =
+      f.kind === "wire"
+        ? [["from", v3(f.from)], ["to", v3(f.to)], ["diameter", f.diameter]]
+        : [["root", v3(f.root)], ["tip", v3(f.tip)], ["width-direction", v3(f.widthDirection)], ["width", f.width], ["thickness", f.thickness]];
+    out.push(`  <flexure ${attrs([["id", f.id], ["kind", f.kind], ["body", f.body], ["on", f.on], ["feature", f.feature], ...ends, ["material", f.material], ["scatter", f.scatter]])}/>`);
+  }
   for (const l of layout.loads) out.push(`  <load ${attrs([["id", l.id], ["body", l.body], ["force", v3(l.force)], ["point", v3(l.point)], ["moment", l.moment && v3(l.moment)]])}/>`);
-  for (const p of layout.points) out.push(`  <point ${attrs([["id", p.id], ["body", p.body], ["at", v3(p.point)]])}/>`);
+  for (const p of layout.points) out.push(`  <point ${attrs([["id", p.id], ["body", p.body], ["at", v3(p.point)], ["allowance", p.allowance]])}/>`);
   for (const lc of layout.loadCases ?? []) out.push(`  <load-case ${attrs([["id", lc.id], ["gravity", v3(lc.gravity)], ["loads", lc.loads?.join(" ")]])}/>`);
   out.push("</mount-layout>", "");
   return out.join("\n");
@@ -75,10 +86,15 @@ export function toXml(layout: Layout): string {
 /** CSV of the contacts (units are not in the file: give them at upload). */
 export function toCsv(layout: Layout): string {
   const hasStiffness = layout.contacts.some((c) => c.stiffness !== undefined);
-  const header = ["id", "body", "on", "x", "y", "z", "nx", "ny", "nz", "sense", "feature", ...(hasStiffness ? ["stiffness"] : [])];
+  const hasScatter = layout.contacts.some((c) => c.scatter !== undefined);
+  const header = ["id", "body", "on", "x", "y", "z", "nx", "ny", "nz", "sense", "feature", ...(hasStiffness ? ["stiffness"] : []), ...(hasScatter ? ["scatter"] : [])];
   const q = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
   const rows = layout.contacts.map((c) =>
-    [c.id, c.body, c.on, ...c.point.map(String), ...c.normal.map(String), c.sense, c.feature ?? "", ...(hasStiffness ? [c.stiffness === undefined ? "" : String(c.stiffness)] : [])].map(q).join(","),
+    [c.id, c.body, c.on, ...c.point.map(String), ...c.normal.map(String), c.sense, c.feature ?? "", ...(hasStiffness ? [c.stiffness === undefined ? "" : String(c.stiffness)] : []),
+      ...(hasScatter ? [c.scatter === undefined ? "" : String(c.scatter)] : []),
+    ]
+      .map(q)
+      .join(","),
   );
   return [header.join(","), ...rows, ""].join("\n");
 }

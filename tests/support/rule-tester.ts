@@ -10,6 +10,8 @@ export interface Expected {
   contacts?: string[];
   body?: RegExp[];
   pivot?: string;
+  /** for rules that escalate a finding above their default severity */
+  severity?: "error" | "warning" | "info";
 }
 
 export interface RuleCases {
@@ -30,7 +32,7 @@ export function testRule(rule: Rule<any>, cases: RuleCases): void { // eslint-di
       expect(found).toHaveLength(c.findings.length);
       c.findings.forEach((e, i) => {
         const f = found[i];
-        expect(f.severity).toBe(rule.meta.severity);
+        expect(f.severity).toBe(e.severity ?? rule.meta.severity);
         expect(f.fingerprint.startsWith(rule.meta.id)).toBe(true);
         if (e.title) expect(f.title).toMatch(e.title);
         if (e.contacts) expect(f.contacts).toEqual(e.contacts);
