@@ -8,7 +8,11 @@
 import { useMemo, useRef, useState } from "react";
 import type { Layout, Vec3 } from "@/lib/layout/model";
 import type { Report } from "@/lib/engine";
+import { expandFlexures, flexureLength } from "@/lib/layout/flexures";
 import { fitPoints, project, scaleBarLength, toSvg, views, type Fit, type ViewSpec } from "./projection";
+import { FlexureLayer, PointLayer, ThermalLayer, largestThreeSigmaUm } from "./service-layers";
+import { palette } from "./palette";
+import { num } from "@/lib/analysis/format";
 
 export interface Emphasis {
   /** contacts to emphasise; others are drawn faint */
@@ -54,7 +58,21 @@ const unitOf = (v: Vec3) => {
   return v.map((x) => x / l) as Vec3;
 };
 
-export function LayoutDrawings({ layout, report, emphasis, print = false, ghosts = [] }: Props) {
+/** What a reader sees of one flexure row on hover or focus: kind, dimensions and stiffness. */
+export function flexureReadout(file: Layout, rowId: string, row: Layout["contacts"][number] | undefined, lengthUnit: string, forceUnit: string): string {
+  const f = (file.flexures ?? []).find((x) => x.id === row?.flexure);
+  if (!f || !row) return "";
+  const dims =
+    f.kind === "wire"
+      ? `length ${Number(flexureLength(f).toPrecision(4))} ${lengthUnit}${f.diameter !== undefined ? `, diameter ${f.diameter} ${lengthUnit}` : ""}`
+      : `length ${Number(flexureLength(f).toPrecision(4))} ${lengthUnit}, width ${f.width} ${lengthUnit}${f.thickness !== undefined ? `, thickness ${f.thickness} ${lengthUnit}` : ""}`;
+  const k = row.stiffness !== undefined ? `, stiffness ${num(row.stiffness, 5)} ${forceUnit}/${lengthUnit}` : ", no stiffness (material modulus or section missing)";
+  return ` · ${f.kind} ${f.id}${rowId === f.id ? "" : ` (row ${rowId.slice(f.id.length + 1)})`}: ${dims}${f.material ? `, ${f.material}` : ""}${k}`;
+}
+
+export function LayoutDrawings({ layout: file, report, emphasis, print = false, ghosts = [] }: Props) {
+  // flexure elements are drawn as elements and their generated rows as contacts (analysis.md §10)
+  const layout = useMemo(() => expandFlexures(file), [file]);
   const [showMotions, setShowMotions] = useState(true);
   const [showLoops, setShowLoops] = useState(true);
   const [showForces, setShowForces] = useState(!!report.seating?.forces);
@@ -92,6 +110,7 @@ export function LayoutDrawings({ layout, report, emphasis, print = false, ghosts
             key={v.name}
             view={v}
             layout={layout}
+            file={file}
             report={report}
             emphasis={emphasis}
             print={print}
@@ -109,7 +128,8 @@ export function LayoutDrawings({ layout, report, emphasis, print = false, ghosts
       <div className="mt-2 min-h-[2.5rem] text-xs" aria-live="polite" data-testid="contact-info">
         {activeContact ? (
           <span className="num">
-            <b>{activeContact.id}</b> ({activeContact.body} on {activeContact.on}{activeContact.feature ? `, ${activeContact.feature}` : ""}) · point ({activeContact.point.join(", ")}) {lengthUnit} · normal ({unitOf(activeContact.normal).map((x) => x.toFixed(3)).join(", ")})
+            <b>{activeContact.id}</b> ({activeContact.body} on {activeContact.on}{activeContact.feature ? `, ${activeContact.feature}` : ""}) · point ({activeContact.point.map((x) => Number(x.toPrecision(6))).join(", ")}) {lengthUnit} · normal ({unitOf(activeContact.normal).map((x) => x.toFixed(3)).join(", ")})
+            {flexureReadout(file, activeContact.id, activeContact, lengthUnit, forceUnit)}
             {report.seating?.forces ? ` · seated force ${report.seating.forces[activeContact.id]?.toPrecision(4)} ${forceUnit}` : ""}
             {report.seating?.liftOff.includes(activeContact.id) ? " · lifted off" : ""}
           </span>
@@ -117,7 +137,7 @@ export function LayoutDrawings({ layout, report, emphasis, print = false, ghosts
           <span className="text-graphite-soft">Point at or tab to a contact to read its coordinates, normal and seated force.</span>
         )}
       </div>
-      {!emphasis && <Legend hasForces={!!report.seating?.forces} />}
+      {!emphasis && <Legend hasForces={!!report.seating?.forces} hasFlexures={(file.flexures ?? []).length > 0} hasPoints={file.points.length > 0} hasThermal={!!report.thermal} threeSigmaUm={largestThreeSigmaUm(report)} />}
       <figcaption className="mt-2 text-xs text-graphite-soft">
         <details>
           <summary>What is drawn</summary>
@@ -133,7 +153,7 @@ export function LayoutDrawings({ layout, report, emphasis, print = false, ghosts
   );
 }
 
-function Legend({ hasForces }: { hasForces: boolean }) {
+function Legend({ hasForces, hasFlexures, hasPoints, hasThermal, threeSigmaUm }: { hasForces: boolean; hasFlexures: boolean; hasPoints: boolean; hasThermal: boolean; threeSigmaUm: number | null }) {
   return (
     <div className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-graphite-soft" data-testid="drawing-legend">
       <span><svg width="30" height="10" aria-hidden="true"><circle cx="5" cy="5" r="3" fill="none" stroke="currentColor" /><line x1="9" y1="5" x2="28" y2="5" stroke="currentColor" /><path d="M28 5 l-4 -2.5 v5 z" fill="currentColor" /></svg> contact and its normal (marker shape = body)</span>
@@ -141,6 +161,10 @@ function Legend({ hasForces }: { hasForces: boolean }) {
       <span><svg width="30" height="10" aria-hidden="true"><line x1="2" y1="5" x2="28" y2="5" stroke="#0f5b5c" strokeWidth="1.4" strokeDasharray="8 3 2 3" /></svg> rotation or screw axis (turning arrow; pitch noted)</span>
       <span><svg width="30" height="10" aria-hidden="true"><circle cx="15" cy="5" r="4" fill="none" stroke="#a3271f" strokeWidth="1.6" strokeDasharray="2 1.5" /></svg> contact in an over-constrained loop</span>
       {hasForces && <span><svg width="30" height="10" aria-hidden="true"><line x1="2" y1="5" x2="26" y2="5" stroke="currentColor" strokeWidth="3" /></svg> seated force (length ∝ force); × lifted off</span>}
+      {hasFlexures && <span><svg width="30" height="10" aria-hidden="true"><rect x="2" y="3" width="26" height="4" fill={palette.flexureFill} stroke={palette.flexure} /><line x1="2" y1="2" x2="2" y2="8" stroke={palette.flexure} strokeWidth="2.6" /></svg> blade (thick edge: root) · <svg width="20" height="10" aria-hidden="true"><line x1="2" y1="5" x2="18" y2="5" stroke={palette.flexure} strokeWidth="1.6" /></svg> wire</span>}
+      {hasPoints && <span><svg width="14" height="10" aria-hidden="true"><path d="M2 5 h10 M7 0 v10" stroke="currentColor" /></svg> functional point</span>}
+      {hasThermal && <span><svg width="22" height="14" aria-hidden="true"><circle cx="11" cy="7" r="5" fill="none" stroke={palette.thermal} strokeWidth="1.4" /><path d="M3 7 h16 M11 0 v14" stroke={palette.thermal} /></svg> thermal centre (TC) · <svg width="26" height="10" aria-hidden="true"><line x1="2" y1="5" x2="22" y2="5" stroke={palette.thermal} strokeDasharray="4 2" /><path d="M24 5 l-5 -3 v6 z" fill={palette.thermal} /></svg> drift direction per K</span>}
+      {threeSigmaUm !== null && <span><svg width="26" height="12" aria-hidden="true"><ellipse cx="13" cy="6" rx="11" ry="4" fill="none" stroke={palette.repeatability} strokeWidth="1.2" /></svg> 3σ repeatability ellipse, magnified: the largest is drawn as long as a normal arrow and stands for {threeSigmaUm.toPrecision(3)} µm</span>}
     </div>
   );
 }
@@ -148,6 +172,8 @@ function Legend({ hasForces }: { hasForces: boolean }) {
 interface OneViewProps {
   view: ViewSpec;
   layout: Layout;
+  /** the layout as in the file (flexure elements, points) */
+  file: Layout;
   report: Report;
   emphasis?: Emphasis;
   print: boolean;
@@ -161,12 +187,22 @@ interface OneViewProps {
   ghosts: { id: string; point: Vec3 }[];
 }
 
-function OneView({ view, layout, report, emphasis, print, show, loopContacts, bodyShape, motions, active, setActive, lengthUnit, ghosts }: OneViewProps) {
+function OneView({ view, layout, file, report, emphasis, print, show, loopContacts, bodyShape, motions, active, setActive, lengthUnit, ghosts }: OneViewProps) {
   const [zoom, setZoom] = useState(1);
   const [pan, setPan] = useState<[number, number]>([0, 0]);
   const drag = useRef<[number, number] | null>(null);
-  const pts = [...layout.contacts.map((c) => project(c.point, view)), ...ghosts.map((g) => project(g.point, view))];
-  const fit: Fit = useMemo(() => fitPoints(pts.length ? pts : [[0, 0]], W, H, 40), [pts.length, view.name]); // eslint-disable-line react-hooks/exhaustive-deps
+  // the frame follows the revision shown (contacts, flexure ends, points, thermal centres, earlier positions)
+  const fit: Fit = useMemo(() => {
+    const model: Vec3[] = [
+      ...layout.contacts.map((c) => c.point),
+      ...(file.flexures ?? []).flatMap((f) => (f.kind === "wire" ? [f.from, f.to] : [f.root, f.tip])),
+      ...file.points.map((p) => p.point),
+      ...Object.values(report.thermal?.bodies ?? {}).flatMap((b) => (b.centre ? [b.centre] : [])),
+      ...ghosts.map((g) => g.point),
+    ];
+    const pts = model.map((p) => project(p, view));
+    return fitPoints(pts.length ? pts : [[0, 0]], W, H, 40);
+  }, [layout, file, report, ghosts, view]);
   const extent = Math.max((W - 80) / fit.scale, 1e-9);
   const arrow = extent * 0.09;
   const px = (p: [number, number]) => toSvg(fit, p);
@@ -256,6 +292,8 @@ function OneView({ view, layout, report, emphasis, print, show, loopContacts, bo
           );
         })}
 
+        <FlexureLayer layout={file} view={view} px={px} emph={emph} />
+
         {/* contacts */}
         {layout.contacts.map((c) => {
           const [x, y] = px(project(c.point, view));
@@ -312,6 +350,9 @@ function OneView({ view, layout, report, emphasis, print, show, loopContacts, bo
             </g>
           );
         })}
+
+        <PointLayer layout={file} report={report} view={view} px={px} emph={emph} refPx={arrow * fit.scale} />
+        <ThermalLayer layout={file} report={report} view={view} px={px} emph={emph} arrow={arrow} />
 
         {/* free motions */}
         {show.motions &&

@@ -10,6 +10,8 @@ export const exampleNames = [
   "mirror-cell-three-vee",
   "flexure-stage-one-freedom",
   "detector-sled-hidden-count",
+  "flexure-stage-full-blades",
+  "hexapod-wire-platform",
 ] as const;
 
 /** Parses examples/<name>.json or throws. */

@@ -7,6 +7,7 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { analyseConstraint, type ConstraintAnalysis } from "@/lib/analysis/constraint";
 import { parseLayoutText } from "@/lib/layout";
+import { expandFlexures } from "@/lib/layout/flexures";
 import type { Layout, Vec3 } from "@/lib/layout/model";
 import { randomLayout, rng } from "../support/layouts";
 
@@ -14,7 +15,8 @@ const examples = ["breadboard-four-feet", "flexure-stage-one-freedom", "detector
 const load = (name: string): Layout => {
   const r = parseLayoutText(readFileSync(`examples/${name}.json`, "utf8"));
   if (!r.ok) throw new Error(name);
-  return r.layout;
+  // flexure elements as the rows they expand to (analysis.md §10), so every row moves with the frame
+  return expandFlexures(r.layout);
 };
 const clone = (l: Layout): Layout => JSON.parse(JSON.stringify(l));
 const mapPoints = (l: Layout, f: (p: Vec3) => Vec3): Layout => {

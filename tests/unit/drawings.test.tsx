@@ -1,8 +1,9 @@
 /** The drawing component: the right number of contacts, normal arrows, motion axes, loops and forces for example layouts. */
 import { describe, expect, it } from "vitest";
 import { renderToStaticMarkup } from "react-dom/server";
-import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
+import { LayoutDrawings, flexureReadout } from "@/components/layout-views/layout-drawings";
 import { runEngine } from "@/lib/engine";
+import { expandFlexures } from "@/lib/layout/flexures";
 import { example } from "../support/examples";
 
 const count = (html: string, attr: string) => (html.match(new RegExp(`${attr}="`, "g")) ?? []).length;
@@ -19,8 +20,11 @@ describe("LayoutDrawings", () => {
     (name) => {
       const { html, layout } = render(name);
       expect(count(html, "data-view")).toBe(4);
-      expect(count(html, "data-contact")).toBe(4 * layout.contacts.length);
-      expect(count(html, "data-normal")).toBe(4 * layout.contacts.length);
+      // flexure rows are drawn as contacts too, and each flexure as an element (analysis.md §10)
+      const rows = expandFlexures(layout).contacts.length;
+      expect(count(html, "data-contact")).toBe(4 * rows);
+      expect(count(html, "data-normal")).toBe(4 * rows);
+      expect(count(html, "data-flexure")).toBe(4 * (layout.flexures ?? []).length);
       expect(html).toContain('data-testid="scale-bar"');
       expect(html).toMatch(/\d+ mm<\/text>/);
     },
@@ -43,7 +47,7 @@ describe("LayoutDrawings", () => {
   });
 
   it("a finding's emphasis fades the other contacts and draws only its motions", () => {
-    const { html } = render("flexure-stage-full-blades", { contacts: ["A-z1", "A-z2", "B-z1", "B-z2"], motions: [] });
+    const { html } = render("flexure-stage-full-blades", { contacts: ["blade-A.a", "blade-A.b", "blade-B.a", "blade-B.b"], motions: [] });
     expect((html.match(/data-emphasised="true"/g) ?? []).length).toBe(16);
     expect((html.match(/data-emphasised="false"/g) ?? []).length).toBe(8);
     expect(count(html, "data-motion")).toBe(0);
@@ -81,5 +85,29 @@ describe("LayoutDrawings", () => {
     expect(html).toContain("What is drawn");
     expect(html).toMatch(/3 free motions drawn as screw axes/);
     expect(html).toMatch(/1 over-constrained loop marked on contacts F1, F2, F3, F4/);
+  });
+
+  it("blades as thin rectangles, wires as lines, in every view", () => {
+    const blades = render("flexure-stage-full-blades").html;
+    expect((blades.match(/data-kind="blade"/g) ?? []).length).toBe(2 * 4);
+    const wires = render("hexapod-wire-platform").html;
+    expect((wires.match(/data-kind="wire"/g) ?? []).length).toBe(6 * 4);
+  });
+
+  it("marks each thermal centre and each point's drift direction; draws each point's 3σ ellipse with a legend", () => {
+    const { html, report } = render("instrument-plate-socket-vee-flat");
+    expect(report.thermal).not.toBeNull();
+    expect(count(html, "data-thermal-centre")).toBe(4);
+    expect(count(html, "data-point")).toBe(2 * 4);
+    expect(count(html, "data-ellipse")).toBe(2 * 4);
+    expect(html).toContain("thermal centre (TC)");
+    expect(html).toMatch(/3σ repeatability ellipse/);
+  });
+
+  it("reads out a flexure row's kind, dimensions and stiffness", () => {
+    const layout = example("flexure-stage-full-blades");
+    const row = expandFlexures(layout).contacts.find((c) => c.id === "blade-A.s");
+    // in-plane stiffness E·t·w³/ℓ³ = 200 GPa · 0.25 mm · (60 mm)³ / (40 mm)³ = 168 750 N/mm (§10, derived)
+    expect(flexureReadout(layout, "blade-A.s", row, "mm", "N")).toBe(" · blade blade-A (row s): length 40 mm, width 60 mm, thickness 0.25 mm, blade-steel, stiffness 168750 N/mm");
   });
 });

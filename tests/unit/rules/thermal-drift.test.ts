@@ -25,7 +25,8 @@ const plate = (allowance?: number, swing?: number) =>
 // = (23.6 − 11.9)e-6 · 200 mm = 2.34 µm/K (derived from linear expansion; built-in coefficients are values from memory)
 testRule(rule, {
   valid: [
-    { name: "no materials: no thermal results", layout: example("breadboard-three-seats") },
+    { name: "no materials: no thermal results", layout: example("detector-sled-hidden-count") },
+    { name: "a body without a material: no thermal results", layout: { ...example("mirror-cell-three-vee"), bodies: [{ id: "mirror-cell" }] } },
   ],
   invalid: [
     { name: "drift listed per K and over 1 K without a swing", layout: plate(), findings: [{ title: /up to 2\.34 µm\/K/, body: [/\| plate \| \(0, 0, 0\) mm \|/, /\| lens \| \(2\.34, 0, 0\)/] }] },
