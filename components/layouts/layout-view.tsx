@@ -10,6 +10,7 @@ import { FindingsTable, type FindingRow } from "./findings-table";
 import { UploadPanel } from "./upload-panel";
 import { RevisionDiffView } from "./revision-diff";
 import { LoadCaseTable } from "./load-case-table";
+import { FlexurePanel, RepeatabilityPanel, ThermalPanel } from "./service-panels";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
@@ -159,6 +160,10 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
           <LayoutDrawings layout={rev.layout} report={rev.report} />
 
           <FindingsTable findings={rev.findings} />
+
+          <FlexurePanel layout={rev.layout} />
+          <ThermalPanel layout={rev.layout} report={rev.report} />
+          <RepeatabilityPanel layout={rev.layout} report={rev.report} />
 
           <section className="sheet space-y-2 p-4" aria-labelledby="release-heading">
             <h2 id="release-heading" className="text-base">Release</h2>

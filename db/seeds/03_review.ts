@@ -96,6 +96,6 @@ export async function seed(knex: Knex): Promise<void> {
     });
     const rev = await knex("revisions").where({ layout_id: stage }).orderBy("number", "desc").first();
     await requestRelease(dana, rev.id);
-    await approveRelease(chen, rev.id, (rid) => releaseReportMarkdown(chen, rid));
+    await approveRelease(chen, rev.id, (rid, approval) => releaseReportMarkdown(chen, rid, approval));
   }
 }

@@ -2,6 +2,7 @@
 import type { Report } from "@/lib/engine";
 import { unitLabel } from "@/lib/layout/units";
 import { axisName, dir, num, vec } from "@/lib/analysis/format";
+import { serviceSections } from "@/lib/report/service-sections";
 
 const mark = { error: "ERROR  ", warning: "WARNING", info: "INFO   " } as const;
 
@@ -52,6 +53,8 @@ export function renderText(r: Report): string {
     lines.push(`  ${"margin".padEnd(12)}${solved.map((c) => (c.seating!.margin === null ? "—" : num(c.seating!.margin)).padStart(18) + "  ").join("")}`);
   }
   if (r.foundation) lines.push("", `Foundation coupling: at most ${num(r.foundation.maxPerMicrometre)} ${r.units.force} per µm of support rise`);
+  const service = serviceSections(r, "");
+  if (service.length) lines.push("", ...service.map((l) => (l.startsWith(" ") ? l.trimStart() : l)));
   lines.push("", `Findings: ${r.findings.length}`);
   for (const f of r.findings) {
     lines.push("", `${mark[f.severity]} ${f.rule}: ${f.title}`);

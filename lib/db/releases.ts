@@ -52,7 +52,11 @@ export async function requestRelease(user: SessionUser, revisionId: number): Pro
 }
 
 /** A checker approves a requested release when no error finding is open. */
-export async function approveRelease(user: SessionUser, revisionId: number, reportMarkdown?: (revisionId: number) => Promise<string>): Promise<void> {
+export async function approveRelease(
+  user: SessionUser,
+  revisionId: number,
+  reportMarkdown?: (revisionId: number, approval: { by: string; at: Date }) => Promise<string>,
+): Promise<void> {
   if (!allowed(user.role, "approveRelease")) throw forbidden("Only checkers approve a release.");
   const rev = await db()("revisions").where({ id: revisionId }).first();
   if (!rev) throw notFound("That revision");
@@ -66,12 +70,14 @@ export async function approveRelease(user: SessionUser, revisionId: number, repo
   if (blocking.length) throw new AppError(409, `${blocking.length} error finding${blocking.length === 1 ? " is" : "s are"} still open: ${blocking.map((b) => b.title).join("; ")}`, { blocking });
   // the report is written from the review as it stands now; the transaction refuses if the review moves on meanwhile
   const stamp = await reviewStamp(rev.layout_id);
-  const md = reportMarkdown ? await reportMarkdown(revisionId) : null;
+  // the approval the report records is exactly the one stored below (same person, same instant)
+  const approvedAt = new Date();
+  const md = reportMarkdown ? await reportMarkdown(revisionId, { by: user.name, at: approvedAt }) : null;
   await transaction(async (trx) => {
     await lockLayout(trx, rev.layout_id, "update");
     if ((await reviewStamp(rev.layout_id, trx)) !== stamp) throw conflict("The review changed while the release was being approved (a comment, waiver or upload). Reload and approve again.");
     if ((await blockingFindings(revisionId, trx)).length) throw conflict("An error finding was reopened a moment ago; the release stays blocked.");
-    const n = await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").update({ approved_by: user.id, approved_at: trx.fn.now(3), report_md: md });
+    const n = await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").update({ approved_by: user.id, approved_at: approvedAt, report_md: md });
     if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });
   });

@@ -6,9 +6,14 @@ import type { SessionUser } from "@/lib/auth/session";
 import { num, vec } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
 import { CAUTION } from "@/rules/describe";
+import { serviceSections } from "./service-sections";
 
-/** Builds the markdown report of one revision (used at release and for download). */
-export async function releaseReportMarkdown(user: SessionUser, revisionId: number): Promise<string> {
+/**
+ * Builds the markdown report of one revision (used at release and for download). `approval` is given
+ * only by the approval itself, for the record it stores in the same transaction; otherwise the approval
+ * line comes from the stored release record alone, and a revision without one prints as a draft.
+ */
+export async function releaseReportMarkdown(user: SessionUser, revisionId: number, approval?: { by: string; at: Date }): Promise<string> {
   const rev = await getRevision(user, revisionId);
   const layout = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layoutId).select("l.name", "p.name as project").first();
   const threads: { id: number; status: string; waiver_reason: string | null; waiver: string | null }[] = await db()("threads as t").leftJoin("users as u", "u.id", "t.waived_by").whereIn("t.id", rev.findings.map((f) => f.threadId)).select("t.id", "t.status", "t.waiver_reason", "u.name as waiver");
@@ -17,7 +22,11 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   const u = unitLabel(r.units.length);
   const fu = unitLabel(r.units.force);
   const lines: string[] = [];
-  lines.push(`# Release report — ${layout.name}, revision ${rev.number}`, "");
+  // only a stored approval makes a release report; anything else is a draft (issue: no report may claim an approval that did not happen)
+  const record = approval ? { by: approval.by, at: approval.at.toISOString() } : rev.release?.approvedBy && rev.release.approvedAt ? { by: rev.release.approvedBy, at: rev.release.approvedAt } : null;
+  const approved = record !== null;
+  lines.push(approved ? `# Release report — ${layout.name}, revision ${rev.number}` : `# DRAFT, not approved — ${layout.name}, revision ${rev.number}`, "");
+  if (!approved) lines.push("> **Draft.** This revision has not been released: this document is not a release record and carries no approval.", "");
   lines.push(`Drawing views: /layouts/${rev.layoutId}/print?revision=${rev.id} (plan, front, side and axonometric).`, "");
   lines.push(`Project: ${layout.project}  `, `File: ${rev.fileName} (${rev.encoding.toUpperCase()}), uploaded by ${rev.uploadedBy} on ${rev.createdAt.slice(0, 10)}  `, `Layout: ${r.layout}`, "");
   lines.push("## Summary", "", "| quantity | value |", "|---|---|");
@@ -49,6 +58,7 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
     for (const [k, v] of Object.entries(r.seating.forces)) lines.push(`| ${k} | ${num(v)} |`);
     lines.push("");
   }
+  lines.push(...serviceSections(r));
   lines.push(`## Findings (${rev.findings.length})`, "");
   for (const f of rev.findings) {
     const t = byThread.get(f.threadId);
@@ -66,8 +76,8 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   lines.push("", "## Release record", "");
   if (rev.release) {
     lines.push(`Requested by ${rev.release.requestedBy} on ${rev.release.requestedAt.slice(0, 16).replace("T", " ")} UTC.  `);
-    lines.push(rev.release.approvedBy ? `Approved by ${rev.release.approvedBy} on ${rev.release.approvedAt!.slice(0, 16).replace("T", " ")} UTC.` : `Approved by ${user.name} (${new Date().toISOString().slice(0, 16).replace("T", " ")} UTC).`);
-  } else lines.push("Not released.");
+    lines.push(record ? `Approved by ${record.by} on ${record.at.slice(0, 16).replace("T", " ")} UTC.` : "Not approved.");
+  } else lines.push("Not requested; not approved.");
   lines.push("", CAUTION, "");
   return lines.join("\n");
 }

@@ -3,9 +3,10 @@
  * laid out as text (headings, paragraphs, table rows) with the plan view of the contacts drawn on the
  * first page. The standard PDF fonts cover WinAnsi only, so other characters are spelled out.
  */
-import { PDFDocument, StandardFonts, rgb, type PDFFont, type PDFPage } from "pdf-lib";
+import { PDFDocument, StandardFonts, degrees, rgb, type PDFFont, type PDFPage } from "pdf-lib";
 import type { Layout } from "@/lib/layout/model";
 import type { Report } from "@/lib/engine";
+import { expandFlexures } from "@/lib/layout/flexures";
 
 const replacements: [RegExp, string][] = [
   [/σ/g, "sigma"], [/−/g, "-"], [/–|—/g, "-"], [/→/g, "->"], [/≈/g, "~"], [/■/g, "[E]"], [/▲/g, "[W]"], [/●/g, "[I]"],
@@ -82,6 +83,12 @@ export async function reportPdf(markdown: string, drawing?: { layout: Layout; re
     else if (line.trim() === "") y -= 4;
     else write(line, regular, 9.5, 0, 2);
   }
+  // a report of a revision that was not approved carries a watermark on every page
+  if (/^# DRAFT/.test(markdown)) {
+    for (const p of doc.getPages()) {
+      p.drawText("DRAFT - NOT APPROVED", { x: 110, y: 250, size: 46, font: bold, color: rgb(0.64, 0.15, 0.12), opacity: 0.16, rotate: degrees(40) });
+    }
+  }
   return doc.save();
 }
 
@@ -89,7 +96,7 @@ function drawPlan(page: PDFPage, { layout }: { layout: Layout; report: Report },
   const h = 220;
   const top = ensure(h + 20);
   const w = 595.28 - 2 * margin;
-  const pts = layout.contacts.map((c) => [c.point[0], c.point[1]] as const);
+  const pts = expandFlexures(layout).contacts.map((c) => [c.point[0], c.point[1]] as const);
   if (!pts.length) return;
   const xs = pts.map((p) => p[0]);
   const ys = pts.map((p) => p[1]);
@@ -102,7 +109,7 @@ function drawPlan(page: PDFPage, { layout }: { layout: Layout; report: Report },
   page.drawRectangle({ x: margin, y: top - h, width: w, height: h, borderColor: rgb(0.6, 0.6, 0.6), borderWidth: 0.5 });
   page.drawText("Plan view (looking down -z; x right, y up)", { x: margin + 4, y: top - 10, size: 7.5, font });
   const arrow = (span * 0.08) * s;
-  for (const c of layout.contacts) {
+  for (const c of expandFlexures(layout).contacts) {
     const x = X(c.point[0]);
     const yy = Y(c.point[1]);
     const n = c.normal.map((v) => v / Math.hypot(...c.normal));

@@ -17,9 +17,11 @@ test("a finding page draws four views with its contacts emphasised", async ({ pa
   await expect(page.locator('[data-emphasised="true"]')).toHaveCount(16);
   await expect(page.locator('[data-emphasised="false"]')).toHaveCount(8);
   // keyboard focus on a contact shows its numbers
-  await page.locator('svg[data-view="plan"] [data-contact="A-z1"]').focus();
-  await expect(page.getByTestId("contact-info")).toContainText("A-z1");
+  await page.locator('svg[data-view="plan"] [data-contact="blade-A.a"]').focus();
+  await expect(page.getByTestId("contact-info")).toContainText("blade-A.a");
   await expect(page.getByTestId("contact-info")).toContainText("mm");
+  // a flexure row reads out its element: kind, dimensions and stiffness with units
+  await expect(page.getByTestId("contact-info")).toContainText(/blade blade-A \(row a\): length 40 mm, width 60 mm, thickness 0\.25 mm, blade-steel, stiffness [\d.]+ N\/mm/);
   await page.screenshot({ path: info.outputPath("finding-drawings.png"), fullPage: true });
 });
 
@@ -34,4 +36,35 @@ test("the printable report carries the same four drawing views and the report te
   await expect(page.getByTestId("printable-report")).toContainText("Waived by Chen Okafor");
   await page.emulateMedia({ media: "print" });
   await expect(page.getByRole("button", { name: "Print" })).toBeHidden();
+});
+
+test("the layout page shows the temperature panel, the error budget and the flexures, with units", async ({ page }, info) => {
+  await signInAs(page, "checker");
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Detachable instrument plate" }).click();
+  await page.getByRole("link", { name: "Plate coupling" }).click();
+  const thermal = page.getByTestId("thermal-panel");
+  await expect(thermal).toContainText("instrument-plate");
+  await expect(thermal).toContainText("µm/K");
+  await expect(page.getByTestId("thermal-drift-table")).toContainText("detector-datum");
+  const budget = page.getByTestId("repeatability-panel");
+  await expect(budget).toContainText("3σ largest semi-axis (µm)");
+  await expect(page.getByTestId("repeatability-table")).toContainText("alignment-mark");
+  await expect(page.getByTestId("budget-chart").locator(".recharts-bar-rectangle").first()).toBeVisible();
+  // sorting the contribution table by share puts the largest share first, then reverses on a second click
+  const firstShare = () => page.getByTestId("contribution-table").locator("tbody tr").first().locator("td").nth(1).innerText();
+  const top = Number(await firstShare());
+  await page.getByTestId("contribution-table").getByRole("button", { name: /share of variance/ }).click();
+  expect(Number(await firstShare())).toBeLessThan(top);
+  // the drawings mark the thermal centre and the 3σ ellipses in every view
+  await expect(page.locator("svg[data-view] [data-thermal-centre]")).toHaveCount(4);
+  await expect(page.locator("svg[data-view] [data-ellipse]")).toHaveCount(8);
+  await page.screenshot({ path: info.outputPath("service-panels.png"), fullPage: true });
+
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Two-blade flexure stage" }).click();
+  await page.getByRole("link", { name: "Stage guidance" }).click();
+  await expect(page.getByTestId("flexure-panel")).toContainText("blade-A");
+  await expect(page.getByTestId("flexure-panel")).toContainText("N/mm");
+  await expect(page.locator('svg[data-view] [data-kind="blade"]')).toHaveCount(8);
 });

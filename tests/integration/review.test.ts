@@ -10,6 +10,7 @@ const { createLayout, listLayouts } = await import("@/lib/db/layouts");
 const { storeRevision, getRevision, recordRefusedUpload, diffRevisions } = await import("@/lib/db/revisions");
 const { addComment, changeStatus, editComment, getThread, listThreads } = await import("@/lib/db/threads");
 const { approveRelease, requestRelease } = await import("@/lib/db/releases");
+const { releaseReportMarkdown } = await import("@/lib/report/markdown");
 const { db } = await import("@/lib/db/knex");
 
 const knex = testKnex();
@@ -97,7 +98,8 @@ describe("revisions and thread carry-over", () => {
     expect(d.contacts.removed).toEqual(["F1", "F2", "F3", "F4"]);
     expect(d.contacts.added).toHaveLength(6);
     expect(d.findings.resolved.map((f) => f.title).join(" ")).toMatch(/Over-constrained loop/);
-    expect(d.findings.unchanged).toHaveLength(1);
+    // the functional point and the thermal drift of the aluminium board stay (same fingerprints)
+    expect(d.findings.unchanged.map((f) => f.title).join(" | ")).toMatch(/beam-splitter: up to .* \| Thermal drift up to/);
   });
 
   it("a refused upload stores only the attempt", async () => {
@@ -164,6 +166,29 @@ describe("release", () => {
     await expect(changeStatus(users.checker, red.id, { action: "reopen", reason: "", version: thread.version })).rejects.toMatchObject({ status: 409 });
     const [summary] = (await listLayouts(users.manager, projectId)).filter((l) => l.id === layoutId);
     expect(summary).toMatchObject({ released: true, openErrors: 0, waived: 1 });
+  });
+});
+
+describe("the report never claims an approval that did not happen", () => {
+  it("a requested but unapproved revision prints as a draft, whoever reads it; after approval the stored record names the checker", async () => {
+    const layoutId = (await createLayout(users.designer, projectId, { name: "Draft bench", description: "" })).id;
+    const rev = await storeRevision(users.designer, layoutId, analysed("flexure-stage-full-blades.json"));
+    await requestRelease(users.designer, rev.id);
+    for (const reader of [users.designer, users.checker, users.manager]) {
+      const md = await releaseReportMarkdown(reader, rev.id);
+      expect(md.split("\n")[0]).toMatch(/^# DRAFT, not approved/);
+      expect(md).not.toMatch(/Approved by/);
+      expect(md).toMatch(/Not approved\./);
+    }
+    const red = (await listThreads(users.manager, layoutId)).find((t) => t.rule === "redundant-constraint")!;
+    await changeStatus(users.checker, red.id, { action: "waive", reason: "Blade twist absorbs the redundant rotation.", version: red.version });
+    await approveRelease(users.checker, rev.id, (rid, approval) => releaseReportMarkdown(users.checker, rid, approval));
+    const stored = await knex("releases").where({ revision_id: rev.id }).first();
+    expect(stored.report_md).toMatch(/^# Release report/);
+    const at = new Date(stored.approved_at).toISOString().slice(0, 16).replace("T", " ");
+    expect(stored.report_md).toContain(`Approved by ${users.checker.name} on ${at} UTC.`);
+    // read later, by anyone, the approval line comes from the stored record
+    expect(await releaseReportMarkdown(users.designer, rev.id)).toContain(`Approved by ${users.checker.name} on ${at} UTC.`);
   });
 });
 

@@ -20,6 +20,6 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ revisio
     return Response.json({ ok: true, status: "requested" }, { status: 201 });
   }
   if (!allowed(user.role, "approveRelease")) throw forbidden("Only checkers approve a release.");
-  await approveRelease(user, id, (rid) => releaseReportMarkdown(user, rid));
+  await approveRelease(user, id, (rid, approval) => releaseReportMarkdown(user, rid, approval));
   return Response.json({ ok: true, status: "released" }, { status: 200 });
 });
