@@ -3,12 +3,15 @@ import type { Role } from "./roles";
 
 export const can = {
   createProject: ["manager"],
+  assignChecker: ["manager"],
+  manageUsers: ["admin"],
   createLayout: ["designer"],
   uploadRevision: ["designer"],
   comment: ["designer", "checker"],
   waive: ["checker"],
   reopen: ["checker"],
   requestRelease: ["designer"],
+  withdrawRelease: ["designer"],
   approveRelease: ["checker"],
   manageTokens: ["designer", "checker", "manager", "admin"],
   readMailOutbox: ["admin"],

@@ -11,6 +11,7 @@ import { UploadPanel } from "./upload-panel";
 import { RevisionDiffView } from "./revision-diff";
 import { LoadCaseTable } from "./load-case-table";
 import { FlexurePanel, RepeatabilityPanel, ThermalPanel } from "./service-panels";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
@@ -49,7 +50,7 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
   const rq = useQuery({ queryKey: ["revision", current], enabled: !!current, queryFn: () => fetchJson<RevisionData>(`/api/revisions/${current}`) });
 
   const release = useMutation({
-    mutationFn: (action: "request" | "approve") => fetchJson(`/api/revisions/${current}/release`, { method: "POST", body: JSON.stringify({ action }) }),
+    mutationFn: (action: "request" | "withdraw" | "approve") => fetchJson(`/api/revisions/${current}/release`, { method: "POST", body: JSON.stringify({ action }) }),
     onSettled: () => Promise.all([qc.invalidateQueries({ queryKey: ["layout", layoutId] }), qc.invalidateQueries({ queryKey: ["revision", current] })]),
   });
 
@@ -184,12 +185,27 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
             )}
             <div className="flex gap-2">
               {can.requestRelease && isLatest && !rev.release && (
-                <button type="button" className="btn" disabled={release.isPending} onClick={() => release.mutate("request")}>Request release of r{rev.number}</button>
+                <ConfirmButton label={`Request release of r${rev.number}`} title={`Request release of revision ${rev.number}?`} confirmLabel="Request release" disabled={release.isPending} onConfirm={() => release.mutate("request")}>
+                  <p>The project&apos;s checker is asked to approve revision {rev.number} as it stands. You can withdraw the request until it is approved.</p>
+                </ConfirmButton>
+              )}
+              {can.requestRelease && isLatest && rev.release && !rev.release.approvedAt && (
+                <ConfirmButton label="Withdraw release request" className="btn-quiet" title={`Withdraw the release request of revision ${rev.number}?`} confirmLabel="Withdraw request" disabled={release.isPending} onConfirm={() => release.mutate("withdraw")}>
+                  <p>The checker will no longer be asked to approve this revision. You can request release again later.</p>
+                </ConfirmButton>
               )}
               {can.approveRelease && isLatest && rev.release && !rev.release.approvedAt && (
-                <button type="button" className="btn" disabled={release.isPending || rq.data!.blocking.length > 0} title={rq.data!.blocking.length ? "Open error findings block the release" : undefined} onClick={() => release.mutate("approve")}>
-                  Approve release of r{rev.number}
-                </button>
+                <ConfirmButton
+                  label={`Approve release of r${rev.number}`}
+                  title={`Release revision ${rev.number}?`}
+                  confirmLabel="Approve and release"
+                  disabled={release.isPending || rq.data!.blocking.length > 0}
+                  buttonTitle={rq.data!.blocking.length ? "Open error findings block the release" : undefined}
+                  onConfirm={() => release.mutate("approve")}
+                >
+                  <p>Releasing is final: revision {rev.number} becomes read-only, its threads close to new comments, and the release report is filed with your name and today&apos;s date.</p>
+                  <p>Findings: {rev.findings.length}, of which waived: {rev.findings.filter((f) => f.status === "waived").length}.</p>
+                </ConfirmButton>
               )}
             </div>
             {release.isError && <p role="alert" className="text-sm text-severity-error">{(release.error as Error).message}</p>}
@@ -241,6 +257,7 @@ function describeEvent(e: { kind: string; detail: Record<string, unknown> }): st
     case "comment": return "commented";
     case "comment-edit": return "edited a comment";
     case "release-request": return `requested release of revision ${d.number}`;
+    case "release-withdraw": return `withdrew the release request of revision ${d.number}`;
     case "release": return `released revision ${d.number}`;
     default: return "";
   }

@@ -1,7 +1,8 @@
 "use client";
 /** Project page body: layouts table with review state and, for designers, the new-layout form. */
 import Link from "next/link";
-import { useQuery } from "@tanstack/react-query";
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { useState } from "react";
 import { fetchJson } from "@/components/ui/fetch-json";
 import { useFormPost } from "@/components/ui/use-form-post";
 import { LayoutStateBadge } from "./layout-state";
@@ -11,15 +12,49 @@ import type { LayoutSummaryDto } from "@/lib/db/layouts";
 type LayoutRow = LayoutSummaryDto;
 
 interface ProjectData {
-  project: { id: number; name: string; description: string; checker: { name: string } | null };
+  project: { id: number; name: string; description: string; checker: { id: number; name: string } | null };
   layouts: LayoutRow[];
+  history: { id: number; kind: string; actor: string | null; createdAt: string; detail: { from?: string | null; to?: string | null; why?: string } }[];
 }
 
-export function ProjectView({ projectId, canCreate, canOverride }: { projectId: number; canCreate: boolean; canOverride: boolean }) {
+/** The manager's control to assign or change the project's checker, and the record of earlier assignments. */
+function CheckerControl({ projectId, current, checkers, history }: { projectId: number; current: { id: number; name: string } | null; checkers: { id: number; name: string }[]; history: ProjectData["history"] }) {
+  const qc = useQueryClient();
+  const [choice, setChoice] = useState(String(current?.id ?? ""));
+  const save = useMutation({
+    mutationFn: () => fetchJson(`/api/projects/${projectId}`, { method: "PATCH", body: JSON.stringify({ checkerId: choice ? Number(choice) : null }) }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: ["project", projectId] }),
+  });
+  return (
+    <section className="sheet space-y-2 p-4 text-sm" aria-labelledby="checker-heading" data-testid="checker-control">
+      <h2 id="checker-heading" className="text-base">Checker</h2>
+      <div className="flex flex-wrap items-end gap-2">
+        <div>
+          <label htmlFor="checker-select" className="label">Checker who approves releases</label>
+          <select id="checker-select" className="field w-auto" value={choice} onChange={(e) => setChoice(e.target.value)}>
+            <option value="">not assigned (any checker)</option>
+            {checkers.map((c) => (<option key={c.id} value={c.id}>{c.name}</option>))}
+          </select>
+        </div>
+        <button type="button" className="btn" disabled={save.isPending || choice === String(current?.id ?? "")} onClick={() => save.mutate()}>Save checker</button>
+      </div>
+      {save.isError && <p role="alert" className="text-severity-error">{(save.error as Error).message}</p>}
+      {history.length > 0 && (
+        <ol className="text-xs text-graphite-soft" data-testid="checker-history">
+          {history.map((h) => (
+            <li key={h.id}>{h.createdAt.slice(0, 16).replace("T", " ")} UTC · {h.actor ?? "Sixfold"} changed the checker from {h.detail.from ?? "not assigned"} to {h.detail.to ?? "not assigned"}{h.detail.why ? ` (${h.detail.why})` : ""}</li>
+          ))}
+        </ol>
+      )}
+    </section>
+  );
+}
+
+export function ProjectView({ projectId, canCreate, canOverride, canAssign = false, checkers = [] }: { projectId: number; canCreate: boolean; canOverride: boolean; canAssign?: boolean; checkers?: { id: number; name: string }[] }) {
   const q = useQuery({ queryKey: ["project", projectId], queryFn: () => fetchJson<ProjectData>(`/api/projects/${projectId}`) });
   if (q.isPending) return <p role="status" className="text-sm text-graphite-soft">Loading project…</p>;
   if (q.isError) return <p role="alert" className="text-sm text-severity-error">{(q.error as Error).message}</p>;
-  const { project, layouts } = q.data;
+  const { project, layouts, history } = q.data;
   return (
     <div className="space-y-6">
       <nav className="text-sm text-graphite-soft">
@@ -30,6 +65,7 @@ export function ProjectView({ projectId, canCreate, canOverride }: { projectId: 
         <p className="text-sm text-graphite-soft">{project.description}</p>
         <p className="mt-1 text-xs text-graphite-soft">Checker: {project.checker?.name ?? "not assigned"}</p>
       </div>
+      {canAssign && <CheckerControl key={project.checker?.id ?? 0} projectId={projectId} current={project.checker} checkers={checkers} history={history} />}
       {canCreate && <NewLayoutForm projectId={projectId} />}
       {layouts.length === 0 ? (
         <div className="sheet px-6 py-10 text-center" data-testid="layouts-empty">

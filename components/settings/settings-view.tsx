@@ -2,6 +2,7 @@
 /** Token list with create (shown once) and revoke; mail kinds with mute switches. */
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useState } from "react";
+import { ConfirmButton } from "@/components/ui/confirm-button";
 import { fetchJson } from "@/components/ui/fetch-json";
 
 interface Token { id: number; name: string; prefix: string; createdAt: string; lastUsedAt: string | null; revokedAt: string | null }
@@ -61,7 +62,13 @@ export function SettingsView({ name }: { name: string }) {
                 <td className="num">{fmt(t.createdAt)}</td>
                 <td className="num">{fmt(t.lastUsedAt)}</td>
                 <td>{t.revokedAt ? `revoked ${fmt(t.revokedAt)}` : "active"}</td>
-                <td>{!t.revokedAt && <button type="button" className="btn-quiet py-0.5 text-xs" onClick={() => revoke.mutate(t.id)}>Revoke</button>}</td>
+                <td>
+                  {!t.revokedAt && (
+                    <ConfirmButton label="Revoke" className="btn-quiet py-0.5 text-xs" title={`Revoke the token "${t.name}"?`} confirmLabel="Revoke token" onConfirm={() => revoke.mutate(t.id)}>
+                      <p>Scripts that use {t.prefix}… stop working at once. This cannot be undone; create a new token to replace it.</p>
+                    </ConfirmButton>
+                  )}
+                </td>
               </tr>
             ))}
             {tokens.data?.tokens.length === 0 && (<tr><td colSpan={6} className="text-center text-graphite-soft">No tokens yet.</td></tr>)}

@@ -42,10 +42,13 @@ export async function currentUser(): Promise<SessionUser | null> {
   return user ? { id: user.id, name: user.name, email: user.email, role: user.role } : null;
 }
 
-/** Throws 401 when nobody is signed in. */
+/** Throws 401 when nobody is signed in; a bearer token that does not authenticate is answered as such. */
 export async function requireUser(): Promise<SessionUser> {
   const user = await currentUser();
-  if (!user) throw unauthorized();
+  if (!user) {
+    if ((await bearer()) !== null) throw unauthorized("The API token is not valid: it is unknown, revoked, or its account is deactivated. Create a new one under Settings → API tokens.");
+    throw unauthorized();
+  }
   return user;
 }
 

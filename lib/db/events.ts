@@ -4,7 +4,7 @@ import { iso } from "./rows";
 import type { Knex } from "knex";
 import { db } from "./knex";
 
-export type EventKind = "upload" | "upload-refused" | "comment" | "comment-edit" | "open" | "waive" | "reopen" | "resolve" | "release-request" | "release";
+export type EventKind = "upload" | "upload-refused" | "comment" | "comment-edit" | "open" | "waive" | "reopen" | "resolve" | "release-request" | "release-withdraw" | "release";
 
 export interface EventDto {
   id: number;

@@ -2,8 +2,10 @@
 import "server-only";
 import { iso } from "./rows";
 import { z } from "zod";
-import { db } from "./knex";
+import { db, transaction } from "./knex";
 import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
+import { allowed } from "@/lib/policy";
+import { listAudit, recordAudit, type AuditDto } from "./audit";
 import type { SessionUser } from "@/lib/auth/session";
 
 interface ProjectRow {
@@ -81,4 +83,32 @@ export async function getProject(_user: SessionUser, id: number): Promise<Projec
   const row = await baseQuery().where("p.id", id).first();
   if (!row) throw notFound("That project");
   return toDto(row as ProjectRow);
+}
+
+export const assignCheckerSchema = z.object({ checkerId: z.coerce.number().int().positive().nullable() });
+
+/** A manager assigns or changes the project's checker (null leaves it open to every checker); recorded in the history. */
+export async function assignChecker(user: SessionUser, projectId: number, checkerId: number | null): Promise<ProjectDto> {
+  if (!allowed(user.role, "assignChecker")) throw forbidden("Only managers assign a project's checker.");
+  const project = await db()("projects").where({ id: projectId }).first();
+  if (!project) throw notFound("That project");
+  let checkerName: string | null = null;
+  if (checkerId !== null) {
+    const checker = await db()("users").where({ id: checkerId, role: "checker", active: true }).first();
+    if (!checker) throw invalid("The chosen checker does not exist or is not an active checker.", { fieldErrors: { checkerId: ["Pick an active checker."] } });
+    checkerName = checker.name;
+  }
+  if ((project.checker_id ?? null) !== checkerId) {
+    const before = project.checker_id ? (await db()("users").where({ id: project.checker_id }).first())?.name ?? null : null;
+    await transaction(async (trx) => {
+      await trx("projects").where({ id: projectId }).update({ checker_id: checkerId });
+      await recordAudit(trx, { subject: "project", subjectId: projectId, kind: "checker-assigned", actorId: user.id, detail: { from: before, to: checkerName } });
+    });
+  }
+  return getProject(user, projectId);
+}
+
+/** The administration history of a project (checker assignments), newest first. */
+export async function projectHistory(_user: SessionUser, projectId: number): Promise<AuditDto[]> {
+  return listAudit("project", projectId);
 }

@@ -51,6 +51,21 @@ export async function requestRelease(user: SessionUser, revisionId: number): Pro
   await enqueueMail(checkers, "release-request", `Release requested: ${l.name} r${rev.number}`, `${user.name} asks for release of revision ${rev.number} of ${l.name}.`, `/layouts/${rev.layout_id}?revision=${revisionId}`, user.id);
 }
 
+/** A designer withdraws a release request until it is approved; recorded in the layout's history. */
+export async function withdrawRelease(user: SessionUser, revisionId: number): Promise<void> {
+  if (!allowed(user.role, "withdrawRelease")) throw forbidden("Only designers withdraw a release request.");
+  const rev = await db()("revisions").where({ id: revisionId }).first();
+  if (!rev) throw notFound("That revision");
+  await transaction(async (trx) => {
+    await lockLayout(trx, rev.layout_id, "update");
+    const req = await trx("releases").where({ revision_id: revisionId }).first();
+    if (!req) throw conflict("No release has been requested for this revision.");
+    if (req.approved_at) throw conflict("This revision is already released; a release cannot be withdrawn.");
+    await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").delete();
+    await recordEvent(trx, { layoutId: rev.layout_id, kind: "release-withdraw", actorId: user.id, revisionId, detail: { number: rev.number } });
+  });
+}
+
 /** A checker approves a requested release when no error finding is open. */
 export async function approveRelease(
   user: SessionUser,

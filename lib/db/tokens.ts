@@ -26,6 +26,11 @@ const hash = (token: string) => createHash("sha256").update(token).digest("hex")
  */
 const verified = new Map<string, { user: { id: number; name: string; email: string; role: Role }; until: number }>();
 
+/** Drops every cached token look-up (after an account is deactivated or its role changes). */
+export function forgetTokens(): void {
+  verified.clear();
+}
+
 function toDto(r: Record<string, unknown>): TokenDto {
   return { id: r.id as number, name: r.name as string, prefix: r.prefix as string, createdAt: iso(r.created_at), lastUsedAt: isoOrNull(r.last_used_at), revokedAt: isoOrNull(r.revoked_at) };
 }

@@ -1,8 +1,15 @@
 /** Users: look-ups and credential checks; never hands a password hash to a caller. */
 import "server-only";
 import bcrypt from "bcryptjs";
-import { db } from "./knex";
-import type { Role } from "@/lib/roles";
+import { z } from "zod";
+import { db, transaction } from "./knex";
+import { iso } from "./rows";
+import { recordAudit } from "./audit";
+import { forgetTokens } from "./tokens";
+import { roles, type Role } from "@/lib/roles";
+import { allowed } from "@/lib/policy";
+import { conflict, forbidden, notFound } from "@/lib/errors";
+import type { SessionUser } from "@/lib/auth/session";
 
 interface UserRow {
   id: number;
@@ -51,4 +58,72 @@ export async function listUsersByRole(role: Role): Promise<UserDto[]> {
 export async function listMentionableUsers(): Promise<{ name: string; handle: string; role: Role }[]> {
   const rows = await db()<UserRow>("users").where({ active: true }).orderBy("name");
   return rows.map((r) => ({ name: r.name, handle: r.email.split("@")[0], role: r.role }));
+}
+
+export interface AdminUserDto extends UserDto {
+  active: boolean;
+  createdAt: string;
+}
+
+export const newUserSchema = z.object({
+  name: z.string().trim().min(2, "Name needs at least 2 characters.").max(100, "Name is at most 100 characters."),
+  email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(200),
+  role: z.enum(roles, { error: "Pick a role." }),
+  password: z.string().min(10, "A password has at least 10 characters.").max(200),
+});
+
+export const userChangeSchema = z
+  .object({ role: z.enum(roles, { error: "Pick a role." }).optional(), active: z.boolean().optional() })
+  .refine((v) => v.role !== undefined || v.active !== undefined, { message: "Say what changes: role or active." });
+
+const adminDto = (r: UserRow): AdminUserDto => ({ ...toDto(r), active: !!r.active, createdAt: iso(r.created_at) });
+
+/** Every account, active or not (admins only). */
+export async function listAllUsers(user: SessionUser): Promise<AdminUserDto[]> {
+  if (!allowed(user.role, "manageUsers")) throw forbidden("Only administrators manage users.");
+  const rows = await db()<UserRow>("users").orderBy("name");
+  return rows.map(adminDto);
+}
+
+/** Adds an account (admins only); recorded in the audit log. */
+export async function addUser(user: SessionUser, input: z.infer<typeof newUserSchema>): Promise<AdminUserDto> {
+  if (!allowed(user.role, "manageUsers")) throw forbidden("Only administrators manage users.");
+  if (await db()("users").where({ email: input.email }).first()) throw conflict(`An account for ${input.email} already exists.`);
+  const hash = await bcrypt.hash(input.password, 10);
+  const id = await transaction(async (trx) => {
+    const [newId] = await trx("users").insert({ name: input.name, email: input.email, role: input.role, password_hash: hash, active: true });
+    await recordAudit(trx, { subject: "user", subjectId: newId, kind: "user-added", actorId: user.id, detail: { name: input.name, role: input.role } });
+    return newId as number;
+  });
+  return adminDto((await db()<UserRow>("users").where({ id }).first())!);
+}
+
+/**
+ * Changes an account's role or deactivates / reactivates it (admins only). A deactivated account cannot
+ * sign in or use its tokens; its history stays. An admin cannot lock themselves out.
+ */
+export async function changeUser(user: SessionUser, id: number, change: z.infer<typeof userChangeSchema>): Promise<AdminUserDto> {
+  if (!allowed(user.role, "manageUsers")) throw forbidden("Only administrators manage users.");
+  const row = await db()<UserRow>("users").where({ id }).first();
+  if (!row) throw notFound("That user");
+  if (id === user.id && (change.active === false || (change.role && change.role !== "admin"))) throw conflict("You cannot deactivate yourself or give up your own admin role; ask another administrator.");
+  await transaction(async (trx) => {
+    if (change.role && change.role !== row.role) {
+      await trx("users").where({ id }).update({ role: change.role });
+      await recordAudit(trx, { subject: "user", subjectId: id, kind: "role-changed", actorId: user.id, detail: { name: row.name, from: row.role, to: change.role } });
+      // a project may not keep a checker who is no longer one
+      if (row.role === "checker") {
+        for (const p of await trx("projects").where({ checker_id: id }).select("id")) {
+          await trx("projects").where({ id: p.id }).update({ checker_id: null });
+          await recordAudit(trx, { subject: "project", subjectId: p.id, kind: "checker-assigned", actorId: user.id, detail: { from: row.name, to: null, why: "no longer a checker" } });
+        }
+      }
+    }
+    if (change.active !== undefined && change.active !== !!row.active) {
+      await trx("users").where({ id }).update({ active: change.active });
+      await recordAudit(trx, { subject: "user", subjectId: id, kind: change.active ? "user-reactivated" : "user-deactivated", actorId: user.id, detail: { name: row.name } });
+    }
+  });
+  forgetTokens();
+  return adminDto((await db()<UserRow>("users").where({ id }).first())!);
 }

@@ -85,7 +85,21 @@ test("designer uploads three seats: the loop resolves; requests release", async 
   await expect(page.getByTestId("upload-status")).toContainText("Revision 2 stored");
   await expect(page.getByTestId("findings-table")).not.toContainText("Over-constrained loop");
   await expect(page.getByTestId("revision-diff")).toContainText("Over-constrained loop");
+  // an irreversible step asks first: Escape cancels, nothing is requested
   await page.getByRole("button", { name: "Request release of r2" }).click();
+  await expect(page.getByRole("dialog", { name: "Request release of revision 2?" })).toBeVisible();
+  await page.keyboard.press("Escape");
+  await expect(page.getByTestId("release-state")).toContainText("Not requested");
+  // request, withdraw (until approved), request again — each confirmed
+  await page.getByRole("button", { name: "Request release of r2" }).click();
+  await page.getByRole("dialog").getByRole("button", { name: "Request release" }).click();
+  await expect(page.getByTestId("release-state")).toContainText("Release requested by Dana Reyes");
+  await page.getByRole("button", { name: "Withdraw release request" }).click();
+  await page.getByRole("dialog").getByRole("button", { name: "Withdraw request" }).click();
+  await expect(page.getByTestId("release-state")).toContainText("Not requested");
+  await expect(page.getByTestId("history")).toContainText("withdrew the release request of revision 2");
+  await page.getByRole("button", { name: "Request release of r2" }).click();
+  await page.getByRole("dialog").getByRole("button", { name: "Request release" }).click();
   await expect(page.getByTestId("release-state")).toContainText("Release requested by Dana Reyes");
   // a designer cannot approve: no button, and the API says 403
   await expect(page.getByRole("button", { name: /Approve release/ })).toHaveCount(0);
@@ -97,7 +111,14 @@ test("designer uploads three seats: the loop resolves; requests release", async 
 test("checker approves the release; the revision is read-only and its report downloads", async ({ page }) => {
   await signInAs(page, "checker");
   await page.goto(layoutUrl);
+  // before approval the printable report is a draft and claims no approval
+  const before = await (await page.request.get(`/api${layoutUrl}`)).json();
+  const draft = await (await page.request.get(`/api/revisions/${before.revisions[1].id}/report?format=md`)).text();
+  expect(draft).toMatch(/^# DRAFT, not approved/);
+  expect(draft).not.toMatch(/Approved by/);
   await page.getByRole("button", { name: "Approve release of r2" }).click();
+  await expect(page.getByRole("dialog", { name: "Release revision 2?" })).toContainText("Releasing is final");
+  await page.getByRole("dialog").getByRole("button", { name: "Approve and release" }).click();
   await expect(page.getByTestId("release-state")).toContainText("Released by Chen Okafor");
   const rev = await (await page.request.get(`/api${layoutUrl}`)).json();
   const md = await page.request.get(`/api/revisions/${rev.revisions[1].id}/report?format=md`);

@@ -2,7 +2,7 @@
 import type { Metadata } from "next";
 import { requirePageUser } from "@/lib/auth/session";
 import { allowed } from "@/lib/policy";
-import { db } from "@/lib/db/knex";
+import { UserAdmin } from "@/components/admin/user-admin";
 import { listOutbox } from "@/lib/mail/outbox";
 import { capturedMail } from "@/lib/mail/captured";
 
@@ -19,19 +19,12 @@ export default async function AdminPage() {
       </div>
     );
   }
-  const users = await db()("users").select("id", "name", "email", "role", "active", "created_at").orderBy("name");
   const outbox = await listOutbox(100);
   const captured = await capturedMail(100);
   return (
     <div className="space-y-8">
       <h1>Administration</h1>
-      <section className="sheet overflow-x-auto p-4">
-        <h2>Users</h2>
-        <table className="tbl mt-2">
-          <thead><tr><th>Name</th><th>E-mail</th><th>Role</th><th>Active</th></tr></thead>
-          <tbody>{users.map((u: { id: number; name: string; email: string; role: string; active: number }) => (<tr key={u.id}><td>{u.name}</td><td>{u.email}</td><td>{u.role}</td><td>{u.active ? "yes" : "no"}</td></tr>))}</tbody>
-        </table>
-      </section>
+      <UserAdmin selfId={user.id} />
       <section className="sheet overflow-x-auto p-4">
         <h2>Mail outbox <span className="num text-graphite-soft">({outbox.length})</span></h2>
         <table className="tbl mt-2 text-xs" data-testid="outbox">

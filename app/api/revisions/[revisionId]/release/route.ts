@@ -1,14 +1,14 @@
-/** POST {action: "request"} (designer) or {action: "approve"} (checker): release of a revision. */
+/** POST {action: "request" | "withdraw"} (designer) or {action: "approve"} (checker): release of a revision. */
 import { z } from "zod";
 import { requireRole } from "@/lib/auth/session";
 import { handle, idFrom, jsonBody, parseWith } from "@/lib/api/handler";
-import { approveRelease, requestRelease } from "@/lib/db/releases";
+import { approveRelease, requestRelease, withdrawRelease } from "@/lib/db/releases";
 import { forbidden } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import { releaseReportMarkdown } from "@/lib/report/markdown";
 
 export const dynamic = "force-dynamic";
-const bodySchema = z.object({ action: z.enum(["request", "approve"]) });
+const bodySchema = z.object({ action: z.enum(["request", "withdraw", "approve"]) });
 
 export const POST = handle(async (req: Request, ctx: { params: Promise<{ revisionId: string }> }) => {
   const user = await requireRole(["designer", "checker"]);
@@ -18,6 +18,11 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ revisio
     if (!allowed(user.role, "requestRelease")) throw forbidden("Only designers request a release.");
     await requestRelease(user, id);
     return Response.json({ ok: true, status: "requested" }, { status: 201 });
+  }
+  if (action === "withdraw") {
+    if (!allowed(user.role, "withdrawRelease")) throw forbidden("Only designers withdraw a release request.");
+    await withdrawRelease(user, id);
+    return Response.json({ ok: true, status: "withdrawn" }, { status: 200 });
   }
   if (!allowed(user.role, "approveRelease")) throw forbidden("Only checkers approve a release.");
   await approveRelease(user, id, (rid, approval) => releaseReportMarkdown(user, rid, approval));
