@@ -1,7 +1,9 @@
-/** contact-overstress: Hertz maximum pressure above the lower allowable of the two materials. */
+/** contact-overstress: Hertz maximum pressure above the lower allowable of the two materials (one finding per contact, every case in a table). */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, type FindingDraft } from "./types";
 import { num } from "@/lib/analysis/format";
+import { unitLabel } from "@/lib/layout/units";
+import type { HertzEntry } from "@/lib/analysis";
 
 export default defineRule({
   meta: {
@@ -9,24 +11,41 @@ export default defineRule({
     severity: "error",
     summary: "Hertz maximum contact pressure above the allowable of the weaker material.",
     explanation:
-      "Each contact with Hertz data is solved at its seated force: contact modulus, principal relative radii, semi-axes, maximum pressure p0, approach and stiffness (elliptical contacts by the exact elliptic-integral solution). p0 is compared with the lower allowable pressure of the two materials. Precision mounts usually stay well below static ratings for repeatability; a project can lower the allowable with the `derate` option. A ball in a true cone touches along a ring, not at points: model a socket as three point contacts.",
+      "Each contact with Hertz data is solved at its seated force in every load case: contact modulus, principal relative radii, semi-axes, maximum pressure p0, approach and stiffness (elliptical contacts by the exact elliptic-integral solution). p0 is compared with the lower allowable pressure of the two materials. One finding per contact lists every load case that exceeds, worst first. Precision mounts usually stay well below static ratings for repeatability; a project can lower the allowable with the `derate` option. A ball in a true cone touches along a ring, not at points: model a socket as three point contacts.",
     source: "Johnson, Contact Mechanics (CUP 1985) §3–§4; Roark's Formulas for Stress and Strain, Table 14.1; ISO 76 static load rating (4200 MPa for ball bearings)",
     options: z.object({ derate: z.number().positive().max(1).default(1) }),
   },
-  check({ analysis, options }) {
-    const out = [];
+  check({ layout, analysis, options }) {
+    const u = unitLabel(layout.units.length);
+    const over = new Map<string, { caseId: string; h: HertzEntry; allow: number }[]>();
     for (const c of analysis.statics.cases) {
       for (const [id, h] of Object.entries(c.hertz)) {
         if (h.allowableMPa === null) continue;
         const allow = h.allowableMPa * options.derate;
         if (h.maxPressureMPa <= allow) continue;
-        out.push({
-          title: `Case ${c.id}: ${id} at ${num(h.maxPressureMPa)} MPa exceeds ${num(allow)} MPa`,
-          body: `In load case **${c.id}** contact ${id} reaches a maximum Hertz pressure of **${num(h.maxPressureMPa)} MPa** against an allowable of ${num(allow)} MPa${options.derate < 1 ? ` (derated ×${options.derate})` : ""}; contact ellipse ${num(h.semiMajor)} × ${num(h.semiMinor)} (semi-axes, file length units), approach ${num(h.approachUm)} µm.\n\n**Repair.** Larger radii, a conforming groove, harder materials or less preload.`,
-          contacts: [id],
-          loadCase: c.id,
-        });
+        over.set(id, [...(over.get(id) ?? []), { caseId: c.id, h, allow }]);
       }
+    }
+    const out: FindingDraft[] = [];
+    for (const c of layout.contacts) {
+      const rows = over.get(c.id);
+      if (!rows) continue;
+      rows.sort((a, b) => b.h.maxPressureMPa / b.allow - a.h.maxPressureMPa / a.allow);
+      const worst = rows[0];
+      const table = [`| load case | max. pressure (MPa) | allowable (MPa) | contact ellipse semi-axes (${u}) | approach (µm) |`, "|---|---|---|---|---|"];
+      for (const r of rows) table.push(`| ${r.caseId} | ${num(r.h.maxPressureMPa)} | ${num(r.allow)} | ${num(r.h.semiMajor)} × ${num(r.h.semiMinor)} | ${num(r.h.approachUm)} |`);
+      out.push({
+        title: `${c.id} at ${num(worst.h.maxPressureMPa)} MPa exceeds ${num(worst.allow)} MPa${rows.length > 1 ? ` (worst of ${rows.length} load cases: ${worst.caseId})` : ` (load case ${worst.caseId})`}`,
+        body: [
+          `Contact ${c.id} exceeds the allowable Hertz pressure${options.derate < 1 ? ` (derated ×${options.derate})` : ""} in ${rows.length} load case${rows.length === 1 ? "" : "s"}, worst first:`,
+          "",
+          table.join("\n"),
+          "",
+          "**Repair.** Larger radii, a conforming groove, harder materials or less preload.",
+        ].join("\n"),
+        // fingerprint = rule + contact id (no load case): the thread follows the contact whichever case is worst
+        contacts: [c.id],
+      });
     }
     return out;
   },

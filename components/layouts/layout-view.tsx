@@ -12,6 +12,7 @@ import { RevisionDiffView } from "./revision-diff";
 import { LoadCaseTable } from "./load-case-table";
 import { FlexurePanel, RepeatabilityPanel, ThermalPanel } from "./service-panels";
 import { ConfirmButton } from "@/components/ui/confirm-button";
+import { summariseLoadCases } from "@/lib/report/load-case-summary";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
@@ -60,6 +61,7 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
   const rev = rq.data?.revision;
   const isLatest = rev && latest && rev.id === latest.id;
   const L = rev?.report.units.length === "um" ? "µm" : rev?.report.units.length;
+  const seatingSummary = rev ? summariseLoadCases(rev.report) : null;
 
   return (
     <div className="space-y-6">
@@ -135,10 +137,10 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
                 </div>
               ))}
             </dl>
-            {rev.report.seating?.forces && (
-              <p className="mt-3 text-xs text-graphite-soft">
-                Seating ({rev.report.loadCases.length} load case{rev.report.loadCases.length === 1 ? "" : "s"}): stiffness {rev.report.seating.stiffness}, margin {rev.report.seating.margin === null ? "—" : rev.report.seating.margin.toPrecision(3)}
-                {rev.report.foundation ? ` · foundation coupling ${Number(rev.report.foundation.maxPerMicrometre.toPrecision(4))} ${rev.report.units.force} per µm` : ""}
+            {seatingSummary && (
+              <p className={`mt-3 text-xs ${seatingSummary.notHeld.length || seatingSummary.liftOff.length ? "text-severity-error" : "text-graphite-soft"}`} data-testid="seating-summary">
+                {seatingSummary.text} Stiffness: {rev.report.loadCases.find((c) => c.seating)?.seating?.stiffness}.
+                {rev.report.foundation ? ` Foundation coupling ${Number(rev.report.foundation.maxPerMicrometre.toPrecision(4))} ${rev.report.units.force} per µm.` : ""}
               </p>
             )}
             {Object.keys(rev.overrides ?? {}).length > 0 && (

@@ -1,5 +1,5 @@
 "use client";
-/** Revision diff: contacts added, removed and moved; findings new, resolved and unchanged. */
+/** Revision diff: contacts added, removed and moved; findings new, resolved, changed (before → after) and unchanged. */
 import Link from "next/link";
 import { useQuery } from "@tanstack/react-query";
 import { fetchJson } from "@/components/ui/fetch-json";
@@ -12,7 +12,9 @@ interface Diff {
   from: number;
   to: number;
   contacts: { added: string[]; removed: string[]; moved: { id: string; from: number[]; to: number[]; normalChanged: boolean }[] };
-  findings: Record<"new" | "resolved" | "unchanged", { threadId: number; title: string; severity: string }[]>;
+  findings: Record<"new" | "resolved" | "unchanged", { threadId: number; title: string; severity: string }[]> & {
+    changed: { threadId: number; title: string; severity: string; before: { title: string; severity: string }; bodyChanged: boolean }[];
+  };
 }
 
 export function RevisionDiffView({ revisionId, against, layout, report }: { revisionId: number; against: number; layout?: Layout; report?: Report }) {
@@ -31,6 +33,21 @@ export function RevisionDiffView({ revisionId, against, layout, report }: { revi
       </div>
       <div className="sheet p-3 text-sm">
         <h3 className="mb-2 font-semibold">Findings</h3>
+        <div className="mb-1" data-testid="diff-changed">
+          <span className="font-medium">changed:</span> {d.findings.changed.length === 0 && "none"}
+          <ul className="ml-4">
+            {d.findings.changed.map((f) => (
+              <li key={f.threadId}>
+                <SeverityBadge severity={f.severity} /> <Link href={`/findings/${f.threadId}`}>{f.title}</Link>
+                <div className="text-xs text-graphite-soft">
+                  {f.before.severity !== f.severity && <>severity {f.before.severity} → {f.severity}. </>}
+                  {f.before.title !== f.title && <>was: “{f.before.title}”. </>}
+                  {f.before.title === f.title && f.before.severity === f.severity && f.bodyChanged && <>numbers in the finding changed. </>}
+                </div>
+              </li>
+            ))}
+          </ul>
+        </div>
         {(["new", "resolved", "unchanged"] as const).map((k) => (
           <div key={k} className="mb-1">
             <span className="font-medium">{k}:</span> {d.findings[k].length === 0 && "none"}

@@ -8,6 +8,7 @@ import remarkGfm from "remark-gfm";
 import remarkMath from "remark-math";
 import rehypeKatex from "rehype-katex";
 import rehypeSanitize, { defaultSchema } from "rehype-sanitize";
+import { rehypeMentions } from "./mentions";
 
 const schema = {
   ...defaultSchema,
@@ -19,10 +20,10 @@ const schema = {
   },
 };
 
-export function MarkdownView({ source, className = "" }: { source: string; className?: string }) {
+export function MarkdownView({ source, className = "", mentions = false }: { source: string; className?: string; mentions?: boolean }) {
   return (
     <div className={`markdown ${className}`}>
-      <ReactMarkdown remarkPlugins={[remarkGfm, remarkMath]} rehypePlugins={[[rehypeSanitize, schema], rehypeKatex]}>
+      <ReactMarkdown remarkPlugins={[remarkGfm, remarkMath]} rehypePlugins={mentions ? [[rehypeSanitize, schema], rehypeMentions, rehypeKatex] : [[rehypeSanitize, schema], rehypeKatex]}>
         {source}
       </ReactMarkdown>
     </div>

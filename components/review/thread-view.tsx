@@ -134,7 +134,9 @@ function StatusActions({ thread, onSubmit, pending, error }: { thread: Thread; o
         >
           <label htmlFor="waiver-reason" className="label">Justification for the waiver (required)</label>
           <textarea id="waiver-reason" className="field min-h-[4rem]" value={reason} onChange={(e) => setReason(e.target.value)} />
-          <button type="submit" className="btn" disabled={pending || reason.trim().length < 10}>Waive finding</button>
+          <button type="submit" className="btn" disabled={pending || reason.trim().length < 10}>
+            {reason.trim().length < 10 ? "Waive — needs a justification of 10 characters or more" : "Waive finding"}
+          </button>
           {reason.trim().length > 0 && reason.trim().length < 10 && <p className="field-error">Give at least 10 characters of justification.</p>}
         </form>
       ) : (
@@ -175,7 +177,7 @@ function CommentItem({ comment, threadKey, readOnly }: { comment: Comment; threa
           {save.isError && <p role="alert" className="field-error">{(save.error as Error).message} Your text is still here.</p>}
         </div>
       ) : (
-        <MarkdownView source={comment.body} />
+        <MarkdownView source={comment.body} mentions />
       )}
       {comment.history.length > 0 && (
         <details className="mt-2 text-xs text-graphite-soft">
@@ -215,8 +217,8 @@ function Composer({ threadId, people }: { threadId: number; people: { name: stri
       }}
     >
       <div className="flex gap-2 text-xs" role="tablist">
-        <button type="button" role="tab" aria-selected={tab === "write"} className={tab === "write" ? "font-semibold" : "text-graphite-soft"} onClick={() => setTab("write")}>Write</button>
-        <button type="button" role="tab" aria-selected={tab === "preview"} className={tab === "preview" ? "font-semibold" : "text-graphite-soft"} onClick={() => setTab("preview")}>Preview</button>
+        <button type="button" role="tab" aria-selected={tab === "write"} className={tab === "write" ? "font-semibold" : "text-graphite-soft"} onClick={() => setTab("write")}>Draft</button>
+        <button type="button" role="tab" aria-selected={tab === "preview"} className={tab === "preview" ? "font-semibold" : "text-graphite-soft"} onClick={() => setTab("preview")}>As it will read</button>
         <span className="ml-auto text-graphite-soft">Markdown: tables, lists, `code`, math $…$ and $$…$$, @mentions</span>
       </div>
       <div className="grid gap-3 md:grid-cols-2">

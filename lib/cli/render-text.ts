@@ -3,6 +3,7 @@ import type { Report } from "@/lib/engine";
 import { unitLabel } from "@/lib/layout/units";
 import { axisName, dir, num, vec } from "@/lib/analysis/format";
 import { serviceSections } from "@/lib/report/service-sections";
+import { CAUTION } from "@/rules/describe";
 
 const mark = { error: "ERROR  ", warning: "WARNING", info: "INFO   " } as const;
 
@@ -56,10 +57,13 @@ export function renderText(r: Report): string {
   const service = serviceSections(r, "");
   if (service.length) lines.push("", ...service.map((l) => (l.startsWith(" ") ? l.trimStart() : l)));
   lines.push("", `Findings: ${r.findings.length}`);
+  let caution = false;
   for (const f of r.findings) {
     lines.push("", `${mark[f.severity]} ${f.rule}: ${f.title}`);
-    for (const l of f.body.split("\n")) lines.push(`    ${l}`);
+    caution ||= f.body.includes(CAUTION);
+    for (const l of f.body.replace(CAUTION, "").trimEnd().split("\n")) lines.push(`    ${l}`);
   }
+  if (caution) lines.push("", CAUTION.replace(/^> /, ""));
   lines.push("");
   return lines.join("\n");
 }

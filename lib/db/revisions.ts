@@ -206,10 +206,19 @@ export interface RevisionDiff {
   from: number;
   to: number;
   contacts: { added: string[]; removed: string[]; moved: { id: string; from: [number, number, number]; to: [number, number, number]; normalChanged: boolean }[] };
-  findings: { new: { threadId: number; title: string; severity: string }[]; resolved: { threadId: number; title: string; severity: string }[]; unchanged: { threadId: number; title: string; severity: string }[] };
+  findings: {
+    new: { threadId: number; title: string; severity: string }[];
+    resolved: { threadId: number; title: string; severity: string }[];
+    /** same thread, but its severity, title or numbers differ: before → after */
+    changed: { threadId: number; title: string; severity: string; before: { title: string; severity: string }; bodyChanged: boolean }[];
+    unchanged: { threadId: number; title: string; severity: string }[];
+  };
 }
 
-/** What changed between two revisions of the same layout: contacts and findings. */
+/** Two findings of one thread read the same: severity, title and body (with its numbers) alike. */
+const sameFinding = (a: FindingRowDto, b: FindingRowDto) => a.severity === b.severity && a.title === b.title && a.body === b.body;
+
+/** What changed between two revisions of the same layout: contacts and findings (new, resolved, changed, unchanged). */
 export async function diffRevisions(user: SessionUser, fromId: number, toId: number): Promise<RevisionDiff> {
   const [a, b] = await Promise.all([getRevision(user, fromId), getRevision(user, toId)]);
   if (a.layoutId !== b.layoutId) throw notFound("Those revisions of one layout");
@@ -234,7 +243,13 @@ export async function diffRevisions(user: SessionUser, fromId: number, toId: num
     findings: {
       new: [...fb.values()].filter((f) => !fa.has(f.threadId)).map(brief),
       resolved: [...fa.values()].filter((f) => !fb.has(f.threadId)).map(brief),
-      unchanged: [...fb.values()].filter((f) => fa.has(f.threadId)).map(brief),
+      changed: [...fb.values()]
+        .filter((f) => fa.has(f.threadId) && !sameFinding(fa.get(f.threadId)!, f))
+        .map((f) => {
+          const o = fa.get(f.threadId)!;
+          return { ...brief(f), before: { title: o.title, severity: o.severity }, bodyChanged: o.body !== f.body };
+        }),
+      unchanged: [...fb.values()].filter((f) => fa.has(f.threadId) && sameFinding(fa.get(f.threadId)!, f)).map(brief),
     },
   };
 }

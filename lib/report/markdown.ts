@@ -7,6 +7,7 @@ import { num, vec } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
 import { CAUTION } from "@/rules/describe";
 import { serviceSections } from "./service-sections";
+import { summariseLoadCases } from "./load-case-summary";
 
 /**
  * Builds the markdown report of one revision (used at release and for download). `approval` is given
@@ -32,7 +33,8 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   lines.push("## Summary", "", "| quantity | value |", "|---|---|");
   lines.push(`| bodies | ${r.counts.bodies} |`, `| contacts | ${r.counts.contacts} |`, `| rank | ${r.counts.rank} |`, `| freedoms | ${r.counts.freedoms} |`, `| redundancies | ${r.counts.redundancies} |`);
   lines.push(`| Grübler–Kutzbach 6N − m | ${r.counts.grubler} |`, `| conditioning σ_r/σ_max | ${num(r.conditioning)} |`, `| characteristic length | ${num(r.scaling.length)} ${u} |`, `| centroid | ${vec(r.scaling.centroid, u)} |`);
-  if (r.seating?.forces) lines.push(`| seating margin (first load case) | ${r.seating.margin === null ? "—" : num(r.seating.margin)} |`);
+  const seating = summariseLoadCases(r);
+  if (seating) lines.push(`| seating (every load case) | ${seating.text.replace(/^Seating over /, "").replace(/\|/g, "/")} |`);
   if (r.foundation) lines.push(`| foundation coupling | ${num(r.foundation.maxPerMicrometre)} ${fu} per µm |`);
   lines.push("");
   const overridden = Object.entries(rev.overrides);
@@ -53,10 +55,17 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
     }
     lines.push("");
   }
-  if (r.seating?.forces) {
-    lines.push("## Seated contact forces (first load case)", "", `| contact | force (${fu}) |`, "|---|---|");
-    for (const [k, v] of Object.entries(r.seating.forces)) lines.push(`| ${k} | ${num(v)} |`);
-    lines.push("");
+  const solved = r.loadCases.filter((c) => c.seating);
+  if (solved.length) {
+    // every load case, side by side: a case that fails must be in the record, not only the first
+    const ids = [...new Set(solved.flatMap((c) => Object.keys(c.seating!.forces ?? {})))];
+    lines.push(`## Seated contact forces by load case (${fu})`, "", `| contact | ${solved.map((c) => c.id).join(" | ")} |`, `|---|${solved.map(() => "---").join("|")}|`);
+    if (!ids.length) lines.push(`| — | ${solved.map(() => "not held").join(" | ")} |`);
+    for (const id of ids) {
+      const cells = solved.map((c) => (c.seating!.forces === null ? "not held" : c.seating!.liftOff.includes(id) ? "lifts off" : num(c.seating!.forces[id] ?? 0)));
+      lines.push(`| ${id} | ${cells.join(" | ")} |`);
+    }
+    lines.push(`| margin | ${solved.map((c) => (c.seating!.forces === null || c.seating!.margin === null ? "—" : num(c.seating!.margin))).join(" | ")} |`, "");
   }
   lines.push(...serviceSections(r));
   lines.push(`## Findings (${rev.findings.length})`, "");
@@ -64,7 +73,8 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
     const t = byThread.get(f.threadId);
     lines.push(`### [${f.severity}] ${f.rule}: ${f.title}`, "", `Status: **${t?.status ?? f.status}**${f.loadCase ? ` · load case ${f.loadCase}` : ""}`, "");
     if (t?.status === "waived") lines.push(`Waived by ${t.waiver ?? "a checker"}: ${t.waiver_reason}`, "");
-    lines.push(f.body.replace(/^#+ /gm, "**").trim(), "");
+    // the caution stands once, at the end of the report, not after every finding
+    lines.push(f.body.replace(CAUTION, "").replace(/^#+ /gm, "**").trim(), "");
   }
   const waived = rev.findings.filter((f) => byThread.get(f.threadId)?.status === "waived");
   lines.push("## Waivers", "");

@@ -21,11 +21,15 @@ test("an @mention sends a mail that the fake SMTP server captures, and the admin
   await page.getByLabel("Comment", { exact: true }).fill(`@dana please add a ${marker}.`);
   await page.getByRole("button", { name: "Post comment" }).click();
   await expect(page.getByTestId("comments")).toContainText(marker);
+  // the mention stands out in the thread
+  await expect(page.getByTestId("comments").locator(".mention", { hasText: "@dana" }).first()).toBeVisible();
   await expect.poll(() => captured().find((m) => m.to.includes("dana@larkspur.example") && /mentioned you/.test(m.subject) && m.text.includes(marker)), { timeout: 15_000 }).toBeTruthy();
   const mail = captured().find((m) => m.text.includes(marker));
   expect(mail.text).toMatch(/http:\/\/localhost:3100\/findings\/\d+/);
   await page.goto("/signout");
   await page.getByRole("button", { name: "Sign out" }).click();
+  // wait for the sign-out redirect to land before the next navigation (it raced page.goto before)
+  await page.waitForURL((u) => !u.pathname.startsWith("/signout"));
   await signInAs(page, "admin");
   await page.goto("/admin");
   await expect(page.getByTestId("captured-mail")).toContainText(marker);

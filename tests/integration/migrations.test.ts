@@ -34,4 +34,22 @@ describe("migrations", () => {
     const rows = await knex("users").select("password_hash");
     for (const r of rows) expect(r.password_hash).toMatch(/^\$2[aby]\$10\$/);
   });
+
+  it("re-keys contact-overstress threads from one per case to one per contact, keeping the newest", async () => {
+    await resetDatabase(knex);
+    const { createHash } = await import("node:crypto");
+    const sha = (t: string) => createHash("sha256").update(t).digest("hex");
+    const layout = (await knex("layouts").first()).id;
+    const insert = (fp: string) => knex("threads").insert({ layout_id: layout, fingerprint: fp, fingerprint_hash: sha(fp), rule: "contact-overstress", severity: "error", title: fp, status: "open" });
+    const [older] = await insert("contact-overstress|B1|case:operating");
+    const [newer] = await insert("contact-overstress|B1|case:shipping");
+    const [other] = await insert("contact-overstress|B2|case:operating");
+    const { up } = await import("../../db/migrations/20261203090100_overstress_fingerprints");
+    await up(knex);
+    const byId = async (id: number) => (await knex("threads").where({ id }).first()).fingerprint;
+    expect(await byId(newer)).toBe("contact-overstress|B1");
+    expect(await byId(older)).toBe("contact-overstress|B1|case:operating");
+    expect(await byId(other)).toBe("contact-overstress|B2");
+    expect((await knex("threads").where({ id: newer }).first()).fingerprint_hash).toBe(sha("contact-overstress|B1"));
+  });
 });

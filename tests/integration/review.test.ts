@@ -98,8 +98,13 @@ describe("revisions and thread carry-over", () => {
     expect(d.contacts.removed).toEqual(["F1", "F2", "F3", "F4"]);
     expect(d.contacts.added).toHaveLength(6);
     expect(d.findings.resolved.map((f) => f.title).join(" ")).toMatch(/Over-constrained loop/);
-    // the functional point and the thermal drift of the aluminium board stay (same fingerprints)
-    expect(d.findings.unchanged.map((f) => f.title).join(" | ")).toMatch(/beam-splitter: up to .* \| Thermal drift up to/);
+    // the functional point and the thermal drift of the aluminium board keep their threads, but their numbers
+    // changed: they are reported as changed, before → after, not as unchanged
+    expect(d.findings.unchanged).toEqual([]);
+    const point = d.findings.changed.find((f) => /beam-splitter/.test(f.title))!;
+    expect(point.before.title).toMatch(/up to 0\.3151 µm/);
+    expect(point.title).toMatch(/up to 0\.6474 µm/);
+    expect(d.findings.changed.map((f) => f.title).join(" ")).toMatch(/Thermal drift up to/);
   });
 
   it("a refused upload stores only the attempt", async () => {
