@@ -16,6 +16,7 @@ export const can = {
   manageTokens: ["designer", "checker", "manager", "admin"],
   readMailOutbox: ["admin"],
   overrideRules: ["admin"],
+  manageMaterials: ["admin", "manager"],
 } as const satisfies Record<string, readonly Role[]>;
 
 export type Action = keyof typeof can;

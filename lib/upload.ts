@@ -9,6 +9,7 @@ import { analyseInWorker } from "@/lib/worker/run-analysis";
 import { recordRefusedUpload, storeRevision, type RevisionSummaryDto } from "@/lib/db/revisions";
 import { db } from "@/lib/db/knex";
 import { overridesForLayout } from "@/lib/db/overrides";
+import { materialsForLayout } from "@/lib/db/materials";
 import type { SessionUser } from "@/lib/auth/session";
 import type { Report } from "@/lib/engine";
 
@@ -35,7 +36,9 @@ export async function uploadRevision(user: SessionUser, layoutId: number, bytes:
   }
   // the project's rule overrides in force now are the ones this revision is analysed (and stored) with
   const overrides = await overridesForLayout(layoutId);
-  const outcome = await analyseInWorker(bytes, { fileName: options.fileName, encoding: options.encoding as Encoding | undefined, length: options.length, force: options.force, overrides });
+  // the project's materials library resolves ids the file does not declare; the stored layout keeps the copy used
+  const library = await materialsForLayout(layoutId);
+  const outcome = await analyseInWorker(bytes, { fileName: options.fileName, encoding: options.encoding as Encoding | undefined, length: options.length, force: options.force, overrides, library });
   if (!outcome.ok) {
     await recordRefusedUpload(user, layoutId, options.fileName, bytes.byteLength, outcome.errors);
     return { ok: false, errors: outcome.errors };

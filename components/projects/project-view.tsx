@@ -7,6 +7,7 @@ import { fetchJson } from "@/components/ui/fetch-json";
 import { useFormPost } from "@/components/ui/use-form-post";
 import { LayoutStateBadge } from "./layout-state";
 import { RuleOverrides } from "./rule-overrides";
+import { MaterialsLibrary } from "./materials-library";
 import type { LayoutSummaryDto } from "@/lib/db/layouts";
 
 type LayoutRow = LayoutSummaryDto;
@@ -50,7 +51,21 @@ function CheckerControl({ projectId, current, checkers, history }: { projectId: 
   );
 }
 
-export function ProjectView({ projectId, canCreate, canOverride, canAssign = false, checkers = [] }: { projectId: number; canCreate: boolean; canOverride: boolean; canAssign?: boolean; checkers?: { id: number; name: string }[] }) {
+export function ProjectView({
+  projectId,
+  canCreate,
+  canOverride,
+  canAssign = false,
+  canEditMaterials = false,
+  checkers = [],
+}: {
+  projectId: number;
+  canCreate: boolean;
+  canOverride: boolean;
+  canAssign?: boolean;
+  canEditMaterials?: boolean;
+  checkers?: { id: number; name: string }[];
+}) {
   const q = useQuery({ queryKey: ["project", projectId], queryFn: () => fetchJson<ProjectData>(`/api/projects/${projectId}`) });
   if (q.isPending) return <p role="status" className="text-sm text-graphite-soft">Loading project…</p>;
   if (q.isError) return <p role="alert" className="text-sm text-severity-error">{(q.error as Error).message}</p>;
@@ -106,6 +121,7 @@ export function ProjectView({ projectId, canCreate, canOverride, canAssign = fal
         </div>
       )}
       <RuleOverrides projectId={projectId} canChange={canOverride} />
+      <MaterialsLibrary projectId={projectId} canEdit={canEditMaterials} />
     </div>
   );
 }

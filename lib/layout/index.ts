@@ -43,8 +43,8 @@ export function parseLayoutText(text: string, options: CsvOptions & { encoding?:
     return { ok: false, errors: [{ location: "file", message: `the file is larger than the ${MAX_FILE_BYTES / 1048576} MB limit` }] };
   }
   const encoding = options.encoding ?? detectEncoding(text, options.fileName);
-  if (encoding === "json") return parseJsonLayout(text);
-  if (encoding === "xml") return parseXmlLayout(text);
+  if (encoding === "json") return parseJsonLayout(text, options.library);
+  if (encoding === "xml") return parseXmlLayout(text, options.library);
   const name = options.name ?? options.fileName?.replace(/^.*[\\/]/, "").replace(/\.csv$/i, "");
   return parseCsvLayout(text, { ...options, name });
 }

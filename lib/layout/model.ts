@@ -20,6 +20,8 @@ export interface Material {
   allowableContactPressureMPa?: number;
   /** linear expansion coefficient, 1/K */
   expansionPerK?: number;
+  /** set on entries taken from the project's materials library (not a file field): where the values come from */
+  source?: string;
 }
 
 export interface HertzData {

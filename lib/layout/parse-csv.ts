@@ -1,6 +1,6 @@
 /** CSV encoding (contacts only, header required): csv-parse for the quoting rules, errors by line and column. */
 import { parse } from "csv-parse/sync";
-import { FORMAT, GROUND, type LayoutError, type ParseResult } from "./model";
+import { FORMAT, GROUND, type LayoutError, type Material, type ParseResult } from "./model";
 import { readNumber } from "./numbers";
 import { validateRaw } from "./schema";
 import type { ForceUnit, LengthUnit } from "./units";
@@ -14,6 +14,8 @@ export interface CsvOptions {
   length?: LengthUnit;
   force?: ForceUnit;
   name?: string;
+  /** the project's materials library (resolved before the built-in table) */
+  library?: Material[];
 }
 
 /** Parses a CSV contact list; units come from the options (the file carries none). */
@@ -98,5 +100,5 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
     if (p.startsWith("/bodies")) return "column body/on";
     return p;
   };
-  return validateRaw(raw, locate);
+  return validateRaw(raw, locate, options.library ?? []);
 }

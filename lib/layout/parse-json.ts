@@ -1,5 +1,5 @@
 /** JSON encoding: parse with line and column on syntax errors, then the shared schema (errors by JSON pointer). */
-import type { ParseResult } from "./model";
+import type { Material, ParseResult } from "./model";
 import { validateRaw } from "./schema";
 
 function lineAndColumn(text: string, offset: number): string {
@@ -10,7 +10,7 @@ function lineAndColumn(text: string, offset: number): string {
 }
 
 /** Parses a JSON mount layout. */
-export function parseJsonLayout(text: string): ParseResult {
+export function parseJsonLayout(text: string, library: Material[] = []): ParseResult {
   let raw: unknown;
   try {
     raw = JSON.parse(text);
@@ -24,5 +24,5 @@ export function parseJsonLayout(text: string): ParseResult {
   if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
     return { ok: false, errors: [{ location: "/", message: "the file must hold one JSON object" }] };
   }
-  return validateRaw(raw);
+  return validateRaw(raw, undefined, library);
 }

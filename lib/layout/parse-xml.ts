@@ -3,7 +3,7 @@
  * entities are never expanded. Errors name the element path and the attribute.
  */
 import { XMLParser, XMLValidator } from "fast-xml-parser";
-import type { LayoutError, ParseResult } from "./model";
+import type { LayoutError, Material, ParseResult } from "./model";
 import { readList, readNumber } from "./numbers";
 import { validateRaw } from "./schema";
 
@@ -94,7 +94,7 @@ function toNodes(ordered: unknown[]): XmlNode[] {
 }
 
 /** Parses an XML mount layout. */
-export function parseXmlLayout(text: string): ParseResult {
+export function parseXmlLayout(text: string, library: Material[] = []): ParseResult {
   const decl = /<!(DOCTYPE|ENTITY)/i.exec(text);
   if (decl) {
     return {
@@ -224,6 +224,6 @@ export function parseXmlLayout(text: string): ParseResult {
     }
     return p;
   };
-  const result = validateRaw(raw, locate);
+  const result = validateRaw(raw, locate, library);
   return result.ok ? { ...result, warnings: [...warnings, ...result.warnings] } : result;
 }

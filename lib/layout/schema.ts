@@ -1,6 +1,6 @@
 /** The zod schema of mount-layout/1 and the cross-reference checks every encoding goes through. */
 import { z } from "zod";
-import { FORMAT, GROUND, MAX_BODIES, MAX_CONTACTS, type Layout, type LayoutError, type ParseResult } from "./model";
+import { FORMAT, GROUND, MAX_BODIES, MAX_CONTACTS, type Layout, type LayoutError, type Material, type ParseResult } from "./model";
 import { forceUnits, lengthUnits } from "./units";
 import { builtinMaterialIds } from "./materials";
 import { bladeFrame, flexureLength, flexureRowIds } from "./flexures";
@@ -179,7 +179,7 @@ function describeIssue(issue: z.core.$ZodIssue, raw: unknown): string {
  * Validates a raw object (from any encoding) into a Layout. `locate` turns a JSON pointer into the
  * location text of the encoding (XML element/attribute, CSV line/column); JSON uses the pointer itself.
  */
-export function validateRaw(raw: unknown, locate: (ptr: string) => string = (p) => p): ParseResult {
+export function validateRaw(raw: unknown, locate: (ptr: string) => string = (p) => p, library: Material[] = []): ParseResult {
   const parsed = rawLayoutSchema.safeParse(raw);
   if (!parsed.success) {
     const errors = parsed.error.issues.slice(0, 200).map((issue) => {
@@ -191,14 +191,17 @@ export function validateRaw(raw: unknown, locate: (ptr: string) => string = (p) 
   }
   const layout = parsed.data as Layout;
   for (const c of layout.contacts) c.normal = c.normal as Layout["contacts"][number]["normal"];
-  const errors = crossCheck(layout, locate);
+  const errors = crossCheck(layout, locate, library);
   if (errors.length) return { ok: false, errors };
+  // the project's library resolves ids the file names but does not declare (before the built-in table)
+  const declared = new Set(layout.materials.map((m) => m.id));
+  layout.materials.push(...library.filter((m) => !declared.has(m.id)).map((m) => ({ ...m })));
   if (!layout.loadCases) delete layout.loadCases;
   else layout.loadCases = layout.loadCases.map((lc) => ({ ...lc, gravity: lc.gravity ?? layout.gravity }));
   return { ok: true, layout, warnings: unknownFieldWarnings(raw, locate) };
 }
 
-function crossCheck(layout: Layout, locate: (ptr: string) => string): LayoutError[] {
+function crossCheck(layout: Layout, locate: (ptr: string) => string, library: Material[]): LayoutError[] {
   const errors: LayoutError[] = [];
   const err = (ptr: string, message: string) => errors.length < 200 && errors.push({ location: locate(ptr), message });
   const uniq = (list: { id: string }[], key: string, what: string) => {
@@ -223,7 +226,7 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string): LayoutErro
   layout.materials.forEach((m, i) => {
     if (builtinMaterialIds.includes(m.id)) err(`/materials/${i}/id`, `material id '${m.id}' is a built-in material and may not be redefined`);
   });
-  const knownMaterial = (id: string) => materials.has(id) || builtinMaterialIds.includes(id);
+  const knownMaterial = (id: string) => materials.has(id) || builtinMaterialIds.includes(id) || library.some((m) => m.id === id);
   layout.contacts.forEach((c, i) => {
     if (c.body === GROUND) err(`/contacts/${i}/body`, "body may not be 'ground' (put ground in 'on')");
     else if (!bodies.has(c.body)) err(`/contacts/${i}/body`, `body '${c.body}' is not declared`);

@@ -2,6 +2,7 @@
 import { parseLayoutBytes, type Encoding } from "@/lib/layout";
 import { detectEncoding } from "@/lib/layout";
 import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
+import type { Material } from "@/lib/layout/model";
 import { runEngine } from "@/lib/engine";
 import type { RuleOverride } from "@/rules";
 
@@ -13,13 +14,15 @@ export interface WorkerRequest {
   force?: ForceUnit;
   /** the project's rule overrides in force */
   overrides?: Record<string, RuleOverride>;
+  /** the project's materials library */
+  library?: Material[];
 }
 
 /** One task: the parse errors, or the layout with its report; an engine exception comes back as `crashed`. */
 export function analyse(req: WorkerRequest) {
   try {
     const bytes = new Uint8Array(req.bytes);
-    const parsed = parseLayoutBytes(bytes, { fileName: req.fileName, encoding: req.encoding, length: req.length, force: req.force });
+    const parsed = parseLayoutBytes(bytes, { fileName: req.fileName, encoding: req.encoding, length: req.length, force: req.force, library: req.library });
     if (!parsed.ok) return { ok: false, errors: parsed.errors };
     const text = new TextDecoder().decode(bytes);
     const encoding = req.encoding ?? detectEncoding(text, req.fileName);

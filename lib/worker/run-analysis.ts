@@ -9,7 +9,7 @@ import os from "node:os";
 import path from "node:path";
 import { Piscina } from "piscina";
 import { AppError } from "@/lib/errors";
-import type { Encoding, Layout, LayoutError } from "@/lib/layout/model";
+import type { Encoding, Layout, LayoutError, Material } from "@/lib/layout/model";
 import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
 import type { Report } from "@/lib/engine";
 import type { RuleOverride } from "@/rules";
@@ -56,7 +56,7 @@ export async function closeAnalysisPool(): Promise<void> {
  */
 export async function analyseInWorker(
   bytes: Uint8Array,
-  options: { fileName: string; encoding?: Encoding; length?: LengthUnit; force?: ForceUnit; overrides?: Record<string, RuleOverride> },
+  options: { fileName: string; encoding?: Encoding; length?: LengthUnit; force?: ForceUnit; overrides?: Record<string, RuleOverride>; library?: Material[] },
   timeoutMs = Number(process.env.SIXFOLD_ANALYSIS_TIMEOUT_MS ?? 120_000),
 ): Promise<AnalysisOutcome> {
   const file = workerPath();

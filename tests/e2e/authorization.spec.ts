@@ -59,6 +59,10 @@ test("every route × every role, signed out and by token: no unexpected allow", 
     { name: "read project", method: "GET", path: `/api/projects/${stage.id}`, allow: everyone },
     // an inactive/unknown checker id: past the gate the manager gets 422, so the matrix changes no project
     { name: "assign checker", method: "PATCH", path: `/api/projects/${stage.id}`, allow: ["manager"], body: () => ({ checkerId: 999999 }) },
+    { name: "read materials library", method: "GET", path: `/api/projects/${stage.id}/materials`, allow: everyone },
+    // an invalid entry: past the gate admins and managers get 422, so the matrix changes no library
+    { name: "set library material", method: "POST", path: `/api/projects/${stage.id}/materials`, allow: ["admin", "manager"], body: () => ({ id: "Not Kebab", source: "x" }) },
+    { name: "remove library material", method: "DELETE", path: `/api/projects/${stage.id}/materials/no-such-material`, allow: ["admin", "manager"] },
     { name: "list users (admin)", method: "GET", path: "/api/admin/users", allow: ["admin"] },
     { name: "add user (admin)", method: "POST", path: "/api/admin/users", allow: ["admin"], body: () => ({ name: "x", email: "not-an-email", role: "designer", password: "short" }) },
     { name: "change user (admin)", method: "PATCH", path: "/api/admin/users/999999", allow: ["admin"], body: () => ({ active: true }) },
