@@ -7,7 +7,7 @@ import { MAX_FILE_BYTES, type Encoding } from "@/lib/layout/model";
 import { forceUnits, lengthUnits } from "@/lib/layout/units";
 import { analyseInWorker } from "@/lib/worker/run-analysis";
 import { recordRefusedUpload, storeRevision, type RevisionSummaryDto } from "@/lib/db/revisions";
-import { db } from "@/lib/db/knex";
+import { layoutExists } from "@/lib/db/layouts";
 import { overridesForLayout } from "@/lib/db/overrides";
 import { materialsForLayout } from "@/lib/db/materials";
 import type { SessionUser } from "@/lib/auth/session";
@@ -25,8 +25,7 @@ export type UploadResult = { ok: true; revision: RevisionSummaryDto; report: Rep
 /** Validates, analyses (in a worker) and stores a revision, or records the refused attempt. */
 export async function uploadRevision(user: SessionUser, layoutId: number, bytes: Uint8Array, options: z.infer<typeof uploadOptionsSchema>): Promise<UploadResult> {
   if (!allowed(user.role, "uploadRevision")) throw forbidden("Only designers upload revisions.");
-  const layout = await db()("layouts").where({ id: layoutId }).first();
-  if (!layout) throw notFound("That layout");
+  if (!(await layoutExists(layoutId))) throw notFound("That layout");
   // an empty or oversized file is refused like any other bad file: located errors, the attempt recorded
   if (bytes.byteLength === 0 || bytes.byteLength > MAX_FILE_BYTES) {
     const message = bytes.byteLength === 0 ? "the file is empty" : `the file is ${(bytes.byteLength / 1048576).toFixed(1)} MB; the limit is 5 MB`;

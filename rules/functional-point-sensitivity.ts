@@ -13,7 +13,7 @@ export default defineRule({
     source: "Rigid-body kinematics of the twist (v + ω × p); stiffness method for the compliant support",
     options: z.object({}),
   },
-  check({ layout, analysis }) {
+  check({ analysis }) {
     const entries = Object.entries(analysis.statics.points);
     if (!entries.length) return [];
     return entries.map(([id, pm]) => {

@@ -18,6 +18,8 @@ import { CAUTION, needsCaution } from "./describe";
 import { fingerprintOf, type Finding, type Rule, type Severity } from "./types";
 import type { EngineAnalysis } from "@/lib/analysis";
 
+// each rule has its own options type; the registry holds them side by side
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- justified: heterogeneous option types
 export const rules: Rule<any>[] = [
   contactOverstress,
   countMismatch,
@@ -34,7 +36,7 @@ export const rules: Rule<any>[] = [
   thermalDrift,
   thermalMismatch,
   weakConstraint,
-]; // eslint-disable-line @typescript-eslint/no-explicit-any
+];
 
 export interface RuleOverride {
   severity?: Severity;

@@ -3,8 +3,9 @@ import type { z } from "zod";
 import type { Layout } from "@/lib/layout/model";
 import type { EngineAnalysis } from "@/lib/analysis";
 
-export type Severity = "error" | "warning" | "info";
-export const severities: Severity[] = ["error", "warning", "info"];
+import { severities, type Severity } from "@/lib/contracts/enums";
+
+export { severities, type Severity };
 
 export interface RuleMeta<O> {
   /** kebab-case id, equal to the file name */

@@ -122,7 +122,6 @@ const plate = { id: "instrument-plate", mass: 6.2, centerOfMass: v(100, 60, 25),
 const hz = ballOnFlat(["cemented-carbide", "stainless-martensitic"], 5);
 const socketC = v(0, 0, 0);
 const veeC = v(200, 0, 0);
-const flatC = v(100, 160, 0);
 // seat scatter (1σ along each normal, mm): lapped socket best, the flat worst (invented for the demo)
 const kelvin = base("Larkspur detachable instrument plate on socket, vee and flat", {
   bodies: [plate],

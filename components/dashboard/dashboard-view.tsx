@@ -5,7 +5,7 @@ import { useQuery } from "@tanstack/react-query";
 import { useMemo, useState } from "react";
 import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { fetchJson } from "@/components/ui/fetch-json";
-import type { DashboardDto } from "@/lib/db/dashboard";
+import type { DashboardDto } from "@/lib/contracts/dashboard";
 
 type SortKey = "project" | "error" | "warning" | "info" | "underWeek" | "underMonth" | "older";
 

@@ -4,12 +4,13 @@ import Link from "next/link";
 import { useMemo, useState } from "react";
 import { createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
 import { SeverityBadge, StatusBadge } from "@/components/review/badges";
+import type { Severity } from "@/lib/contracts/enums";
 
 export interface FindingRow {
   id: number;
   threadId: number;
   rule: string;
-  severity: "error" | "warning" | "info";
+  severity: Severity;
   title: string;
   status: string;
   loadCase: string | null;

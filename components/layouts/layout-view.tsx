@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
-import { useEffect, useState } from "react";
+import { useEffect, useMemo, useState } from "react";
 import { fetchJson } from "@/components/ui/fetch-json";
 import { LayoutStateBadge } from "@/components/projects/layout-state";
 import { FindingsTable, type FindingRow } from "./findings-table";
@@ -16,7 +16,7 @@ import { summariseLoadCases } from "@/lib/report/load-case-summary";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
-import type { RevisionSummaryDto } from "@/lib/db/revisions";
+import type { RevisionSummaryDto } from "@/lib/contracts/revisions";
 
 type RevisionSummary = RevisionSummaryDto;
 
@@ -39,7 +39,7 @@ export function LayoutView({ layoutId, initialRevision, can }: { layoutId: numbe
   const lq = useQuery({ queryKey: ["layout", layoutId], queryFn: () => fetchJson<LayoutData>(`/api/layouts/${layoutId}`) });
   const [selected, setSelected] = useState<number | null>(initialRevision);
   const [compareWith, setCompareWith] = useState<number | null>(null);
-  const revisions = lq.data?.revisions ?? [];
+  const revisions = useMemo(() => lq.data?.revisions ?? [], [lq.data]);
   const latest = revisions[revisions.length - 1];
   const current = selected ?? latest?.id ?? null;
   useEffect(() => {

@@ -4,7 +4,7 @@ import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { fetchJson } from "@/components/ui/fetch-json";
 import { useFormPost } from "@/components/ui/use-form-post";
 import { ConfirmButton } from "@/components/ui/confirm-button";
-import type { ProjectMaterialDto } from "@/lib/db/materials";
+import type { ProjectMaterialDto } from "@/lib/contracts/materials";
 
 const cell = (v: number | null, k = 1) => (v === null ? "—" : String(Number((v * k).toPrecision(4))));
 const numberOrNull = (v: FormDataEntryValue | null, k = 1) => {

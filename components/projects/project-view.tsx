@@ -8,7 +8,7 @@ import { useFormPost } from "@/components/ui/use-form-post";
 import { LayoutStateBadge } from "./layout-state";
 import { RuleOverrides } from "./rule-overrides";
 import { MaterialsLibrary } from "./materials-library";
-import type { LayoutSummaryDto } from "@/lib/db/layouts";
+import type { LayoutSummaryDto } from "@/lib/contracts/layouts";
 
 type LayoutRow = LayoutSummaryDto;
 

@@ -3,7 +3,7 @@
 import { useQuery } from "@tanstack/react-query";
 import { fetchJson } from "@/components/ui/fetch-json";
 import { useFormPost } from "@/components/ui/use-form-post";
-import type { ProjectDto } from "@/lib/db/projects";
+import type { ProjectDto } from "@/lib/contracts/projects";
 
 type Project = ProjectDto;
 

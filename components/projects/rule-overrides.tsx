@@ -9,12 +9,13 @@ import { useState } from "react";
 import { fetchJson } from "@/components/ui/fetch-json";
 import { useFormPost } from "@/components/ui/use-form-post";
 import { SeverityBadge } from "@/components/review/badges";
-import type { OverrideDto } from "@/lib/db/overrides";
+import type { OverrideDto } from "@/lib/contracts/overrides";
+import type { Severity } from "@/lib/contracts/enums";
 
 interface OverridesData {
   current: OverrideDto[];
   history: OverrideDto[];
-  rules: { id: string; severity: "error" | "warning" | "info"; summary: string; defaults: Record<string, unknown> }[];
+  rules: { id: string; severity: Severity; summary: string; defaults: Record<string, unknown> }[];
 }
 
 const fmt = (iso: string) => iso.slice(0, 16).replace("T", " ");

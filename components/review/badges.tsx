@@ -1,7 +1,8 @@
 /** Severity and status badges: shape and text carry the meaning, colour only adds to it. */
 const sevMark = { error: "■", warning: "▲", info: "●" } as const;
+import type { Severity } from "@/lib/contracts/enums";
 
-export function SeverityBadge({ severity }: { severity: "error" | "warning" | "info" | string }) {
+export function SeverityBadge({ severity }: { severity: Severity | string }) {
   const s = (["error", "warning", "info"].includes(severity) ? severity : "info") as keyof typeof sevMark;
   return (
     <span className={`badge badge-${s}`} data-severity={s}>

@@ -9,7 +9,7 @@ import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import { SeverityBadge, StatusBadge } from "./badges";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
-import type { CommentDto, ThreadDto } from "@/lib/db/threads";
+import type { CommentDto, ThreadDto } from "@/lib/contracts/threads";
 
 type Comment = CommentDto;
 type Thread = ThreadDto;

@@ -16,7 +16,7 @@ export async function fetchJson<T>(url: string, init: RequestInit = {}): Promise
   if (init.body && typeof init.body === "string" && !headers.has("content-type")) headers.set("content-type", "application/json");
   const res = await fetch(url, { ...init, headers });
   const text = await res.text();
-  let body: unknown = null;
+  let body: unknown;
   try {
     body = text ? JSON.parse(text) : null;
   } catch {

@@ -11,7 +11,7 @@ import { runEngine } from "../../lib/engine";
 import { storeRevision } from "../../lib/db/revisions";
 import { addComment, changeStatus } from "../../lib/db/threads";
 import { approveRelease, requestRelease } from "../../lib/db/releases";
-import { releaseReportMarkdown } from "../../lib/report/markdown";
+import { releaseReportMarkdown } from "../../lib/report/release";
 import type { SessionUser } from "../../lib/auth/session";
 
 const examples = path.join(path.dirname(new URL(import.meta.url).pathname), "..", "..", "examples");

@@ -82,7 +82,7 @@ export function hertzContact(input: HertzInput): HertzResult {
   const Rmax = 1 / (2 * A);
   const Rmin = 1 / (2 * B);
   const ratio = B / A;
-  let e = 0;
+  let e: number;
   let a: number;
   let b: number;
   let p0: number;

@@ -287,7 +287,7 @@ function solveCase(ctx: Ctx, id: string, gravity: Vec3, loadIds: string[] | unde
   const w = caseWrench(ctx, gravity, loadIds);
   const ones = new Array<number>(ctx.m).fill(1);
   const fileK = layout.contacts.map((k) => k.stiffness ?? 1);
-  let k = source === "file" ? fileK : ones;
+  const k = source === "file" ? fileK : ones;
   let { solve, active } = activeSet(ctx, k, w);
   let secant: number[] | null = source === "file" ? fileK : null;
   let tangent: number[] | null = source === "file" ? fileK : null;
@@ -305,7 +305,6 @@ function solveCase(ctx: Ctx, id: string, gravity: Vec3, loadIds: string[] | unde
       const res = activeSet(ctx, kk, w, active);
       solve = res.solve;
       active = res.active;
-      k = kk;
       const maxF = Math.max(...solve.lambda.map(Math.abs), 1e-300);
       if (solve.driven || Math.max(...solve.lambda.map((v, i) => Math.abs(v - prev[i]))) < 1e-12 * maxF) break;
     }

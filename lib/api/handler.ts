@@ -39,7 +39,7 @@ export function checkSameOrigin(req: Request): void {
   if (/^bearer\s+/i.test(req.headers.get("authorization") ?? "")) return;
   const host = req.headers.get("x-forwarded-host") ?? req.headers.get("host");
   const source = req.headers.get("origin") ?? req.headers.get("referer");
-  let sourceHost: string | null = null;
+  let sourceHost: string | null;
   try {
     sourceHost = source ? new URL(source).host : null;
   } catch {

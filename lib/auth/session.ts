@@ -4,7 +4,6 @@ import { getServerSession } from "next-auth";
 import { redirect } from "next/navigation";
 import { headers } from "next/headers";
 import { authenticateToken } from "@/lib/db/tokens";
-import { ensureOutboxTimer } from "@/lib/mail/outbox";
 import { authOptions } from "./options";
 import { forbidden, unauthorized } from "@/lib/errors";
 import { findUserById } from "@/lib/db/users";
@@ -32,7 +31,6 @@ async function bearer(): Promise<string | null> {
  * disabled account or changed role takes effect; null when neither is valid.
  */
 export async function currentUser(): Promise<SessionUser | null> {
-  ensureOutboxTimer();
   const token = await bearer();
   if (token !== null) return authenticateToken(token);
   const session = await getServerSession(authOptions);

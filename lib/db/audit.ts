@@ -3,9 +3,9 @@ import "server-only";
 import type { Knex } from "knex";
 import { db } from "./knex";
 import { iso } from "./rows";
+import type { AuditSubject, AuditKind, AuditDto } from "@/lib/contracts/audit";
+export type { AuditSubject, AuditKind, AuditDto } from "@/lib/contracts/audit";
 
-export type AuditSubject = "project" | "user";
-export type AuditKind = "checker-assigned" | "user-added" | "role-changed" | "user-deactivated" | "user-reactivated";
 
 interface AuditRow {
   id: number;
@@ -18,15 +18,6 @@ interface AuditRow {
   created_at: Date;
 }
 
-export interface AuditDto {
-  id: number;
-  subject: AuditSubject;
-  subjectId: number;
-  kind: AuditKind;
-  detail: Record<string, unknown>;
-  actor: string | null;
-  createdAt: string;
-}
 
 const toDto = (r: AuditRow): AuditDto => ({ id: r.id, subject: r.subject, subjectId: r.subject_id, kind: r.kind, detail: JSON.parse(r.detail), actor: r.actor_name, createdAt: iso(r.created_at) });
 

@@ -3,18 +3,10 @@ import "server-only";
 import { iso } from "./rows";
 import type { Knex } from "knex";
 import { db } from "./knex";
+import type { EventKind, EventDto } from "@/lib/contracts/events";
+export type { EventKind, EventDto } from "@/lib/contracts/events";
 
-export type EventKind = "upload" | "upload-refused" | "comment" | "comment-edit" | "open" | "waive" | "reopen" | "resolve" | "release-request" | "release-withdraw" | "release";
 
-export interface EventDto {
-  id: number;
-  kind: EventKind;
-  actor: string | null;
-  threadId: number | null;
-  revisionId: number | null;
-  detail: Record<string, unknown>;
-  createdAt: string;
-}
 
 /** Appends one event (inside the caller's transaction when given). */
 export async function recordEvent(

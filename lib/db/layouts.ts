@@ -6,29 +6,12 @@ import { db } from "./knex";
 import { conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
+import type { LayoutSummaryDto } from "@/lib/contracts/layouts";
+import { layoutInputSchema } from "@/lib/contracts/layouts";
+export type { LayoutSummaryDto } from "@/lib/contracts/layouts";
+export { layoutInputSchema } from "@/lib/contracts/layouts";
 
-export const layoutInputSchema = z.object({
-  name: z.string().trim().min(3, "Name needs at least 3 characters.").max(160, "Name is at most 160 characters."),
-  description: z.string().trim().max(2000, "Description is at most 2000 characters.").default(""),
-});
 
-export interface LayoutSummaryDto {
-  id: number;
-  projectId: number;
-  projectName: string;
-  name: string;
-  description: string;
-  createdBy: string;
-  createdAt: string;
-  revisions: number;
-  latestRevision: { id: number; number: number; createdAt: string; freedoms: number; redundancies: number } | null;
-  openErrors: number;
-  openWarnings: number;
-  openInfos: number;
-  waived: number;
-  released: boolean;
-  releaseRequested: boolean;
-}
 
 interface LayoutRow {
   id: number;
@@ -104,4 +87,9 @@ export async function createLayout(user: SessionUser, projectId: number, input: 
   if (await db()("layouts").where({ project_id: projectId, name: input.name }).first()) throw conflict(`This project already has a layout named "${input.name}".`);
   const [id] = await db()("layouts").insert({ project_id: projectId, name: input.name, description: input.description ?? "", created_by: user.id });
   return getLayout(user, id);
+}
+
+/** Whether a layout exists (any role may ask; no details returned). */
+export async function layoutExists(layoutId: number): Promise<boolean> {
+  return !!(await db()("layouts").where({ id: layoutId }).first("id"));
 }

@@ -5,7 +5,6 @@
  * overrides in force and keep a copy on the revision.
  */
 import "server-only";
-import { z } from "zod";
 import { db } from "./knex";
 import { iso } from "./rows";
 import { forbidden, invalid, notFound } from "@/lib/errors";
@@ -13,37 +12,12 @@ import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
 import { rules, type RuleOverride } from "@/rules";
 import type { Severity } from "@/rules/types";
+import type { OverrideInput, OverrideDto } from "@/lib/contracts/overrides";
+export type { OverrideInput, OverrideDto } from "@/lib/contracts/overrides";
+export { overrideInputSchema } from "@/lib/contracts/overrides";
 
-const reason = z.string().trim().min(10, "Give the reason in at least 10 characters.").max(2000);
-const rule = z.string().trim().min(1, "Pick a rule.");
 
-export const overrideInputSchema = z.discriminatedUnion("action", [
-  z.object({
-    action: z.literal("set"),
-    rule,
-    severity: z.enum(["error", "warning", "info"]).nullable().default(null),
-    options: z.record(z.string(), z.unknown()).nullable().default(null),
-    reason,
-  }),
-  z.object({
-    action: z.literal("clear"),
-    rule,
-    reason,
-  }),
-]);
-export type OverrideInput = z.infer<typeof overrideInputSchema>;
 
-export interface OverrideDto {
-  id: number;
-  rule: string;
-  defaultSeverity: Severity;
-  severity: Severity | null;
-  options: Record<string, unknown> | null;
-  cleared: boolean;
-  reason: string;
-  setBy: string;
-  setAt: string;
-}
 
 /** What the form offers: every rule with its default severity and default options. */
 export function ruleCatalogue(): { id: string; severity: Severity; summary: string; defaults: Record<string, unknown> }[] {

@@ -1,12 +1,14 @@
 /** Projects: list for any signed-in user, create for managers. */
 import "server-only";
 import { iso } from "./rows";
-import { z } from "zod";
 import { db, transaction } from "./knex";
 import { conflict, forbidden, invalid, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import { listAudit, recordAudit, type AuditDto } from "./audit";
 import type { SessionUser } from "@/lib/auth/session";
+import type { ProjectDto, ProjectInput } from "@/lib/contracts/projects";
+export type { ProjectDto, ProjectInput } from "@/lib/contracts/projects";
+export { projectInputSchema, assignCheckerSchema } from "@/lib/contracts/projects";
 
 interface ProjectRow {
   id: number;
@@ -19,21 +21,7 @@ interface ProjectRow {
   creator_name?: string | null;
 }
 
-export interface ProjectDto {
-  id: number;
-  name: string;
-  description: string;
-  checker: { id: number; name: string } | null;
-  createdBy: string | null;
-  createdAt: string;
-}
 
-export const projectInputSchema = z.object({
-  name: z.string().trim().min(3, "Name needs at least 3 characters.").max(120, "Name is at most 120 characters."),
-  description: z.string().trim().max(2000, "Description is at most 2000 characters.").default(""),
-  checkerId: z.coerce.number().int().positive().nullable().optional(),
-});
-export type ProjectInput = z.infer<typeof projectInputSchema>;
 
 function toDto(row: ProjectRow): ProjectDto {
   return {
@@ -85,7 +73,6 @@ export async function getProject(_user: SessionUser, id: number): Promise<Projec
   return toDto(row as ProjectRow);
 }
 
-export const assignCheckerSchema = z.object({ checkerId: z.coerce.number().int().positive().nullable() });
 
 /** A manager assigns or changes the project's checker (null leaves it open to every checker); recorded in the history. */
 export async function assignChecker(user: SessionUser, projectId: number, checkerId: number | null): Promise<ProjectDto> {

@@ -6,7 +6,6 @@ import { recordEvent } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
-import { enqueueMail } from "@/lib/mail/outbox";
 import { requireProjectChecker } from "./threads";
 
 /** Error-severity threads that are open or reopened and appear in the revision (they block release). */
@@ -30,7 +29,16 @@ async function latestOf(layoutId: number, q: Knex | Knex.Transaction = db()) {
   return q("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first();
 }
 
-/** A designer asks for release of the newest revision. */
+/** Who hears of a release step of a revision: the layout's name and owner, the project's checker (or every active checker), the requester. */
+export async function releaseAudience(revisionId: number): Promise<{ layoutId: number; layoutName: string; number: number; owner: number; checkers: number[]; requester: number | null }> {
+  const rev = await db()("revisions").where({ id: revisionId }).first();
+  const l = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layout_id).select("l.name", "l.created_by", "p.checker_id").first();
+  const checkers = l.checker_id ? [l.checker_id as number] : (await db()("users").where({ role: "checker", active: true }).select("id")).map((u: { id: number }) => u.id);
+  const req = await db()("releases").where({ revision_id: revisionId }).first();
+  return { layoutId: rev.layout_id, layoutName: l.name, number: rev.number, owner: l.created_by, checkers, requester: req?.requested_by ?? null };
+}
+
+/** A designer asks for release of the newest revision. Notifications: lib/review. */
 export async function requestRelease(user: SessionUser, revisionId: number): Promise<void> {
   if (!allowed(user.role, "requestRelease")) throw forbidden("Only designers request a release.");
   const rev = await db()("revisions").where({ id: revisionId }).first();
@@ -46,9 +54,6 @@ export async function requestRelease(user: SessionUser, revisionId: number): Pro
     await trx("releases").insert({ revision_id: revisionId, requested_by: user.id });
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release-request", actorId: user.id, revisionId, detail: { number: rev.number } });
   });
-  const l = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layout_id).select("l.name", "p.checker_id").first();
-  const checkers = l.checker_id ? [l.checker_id] : (await db()("users").where({ role: "checker", active: true }).select("id")).map((u: { id: number }) => u.id);
-  await enqueueMail(checkers, "release-request", `Release requested: ${l.name} r${rev.number}`, `${user.name} asks for release of revision ${rev.number} of ${l.name}.`, `/layouts/${rev.layout_id}?revision=${revisionId}`, user.id);
 }
 
 /** A designer withdraws a release request until it is approved; recorded in the layout's history. */
@@ -96,6 +101,4 @@ export async function approveRelease(
     if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });
   });
-  const l = await db()("layouts").where({ id: rev.layout_id }).first();
-  await enqueueMail([req.requested_by, l.created_by], "release", `Released: ${l.name} r${rev.number}`, `${user.name} approved the release of revision ${rev.number} of ${l.name}.`, `/layouts/${rev.layout_id}?revision=${revisionId}`, user.id);
 }

@@ -13,40 +13,11 @@ import type { SessionUser } from "@/lib/auth/session";
 import type { Encoding, Layout, LayoutError } from "@/lib/layout/model";
 import type { Report } from "@/lib/engine";
 import type { RuleOverride } from "@/rules";
+import type { RevisionSummaryDto, RevisionDto, FindingRowDto, RevisionDiff } from "@/lib/contracts/revisions";
+export type { RevisionSummaryDto, RevisionDto, FindingRowDto, RevisionDiff } from "@/lib/contracts/revisions";
 
-export interface RevisionSummaryDto {
-  id: number;
-  layoutId: number;
-  number: number;
-  encoding: Encoding;
-  fileName: string;
-  counts: { bodies: number; contacts: number; rank: number; freedoms: number; redundancies: number };
-  conditioning: number;
-  uploadedBy: string;
-  createdAt: string;
-  release: { requestedBy: string; requestedAt: string; approvedBy: string | null; approvedAt: string | null } | null;
-  /** project rule overrides in force when this revision was analysed (empty: none) */
-  overrides: Record<string, RuleOverride>;
-}
 
-export interface RevisionDto extends RevisionSummaryDto {
-  report: Report;
-  layout: Layout;
-  findings: FindingRowDto[];
-}
 
-export interface FindingRowDto {
-  id: number;
-  threadId: number;
-  rule: string;
-  severity: "error" | "warning" | "info";
-  title: string;
-  body: string;
-  contacts: string[];
-  loadCase: string | null;
-  status: "open" | "waived" | "resolved" | "reopened";
-  comments: number;
-}
 
 type Row = Record<string, unknown>;
 
@@ -202,18 +173,6 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
   return toSummary(row);
 }
 
-export interface RevisionDiff {
-  from: number;
-  to: number;
-  contacts: { added: string[]; removed: string[]; moved: { id: string; from: [number, number, number]; to: [number, number, number]; normalChanged: boolean }[] };
-  findings: {
-    new: { threadId: number; title: string; severity: string }[];
-    resolved: { threadId: number; title: string; severity: string }[];
-    /** same thread, but its severity, title or numbers differ: before → after */
-    changed: { threadId: number; title: string; severity: string; before: { title: string; severity: string }; bodyChanged: boolean }[];
-    unchanged: { threadId: number; title: string; severity: string }[];
-  };
-}
 
 /** Two findings of one thread read the same: severity, title and body (with its numbers) alike. */
 const sameFinding = (a: FindingRowDto, b: FindingRowDto) => a.severity === b.severity && a.title === b.title && a.body === b.body;
@@ -252,4 +211,10 @@ export async function diffRevisions(user: SessionUser, fromId: number, toId: num
       unchanged: [...fb.values()].filter((f) => fa.has(f.threadId) && sameFinding(fa.get(f.threadId)!, f)).map(brief),
     },
   };
+}
+
+/** The id of a layout's newest revision, or null. */
+export async function latestRevisionId(layoutId: number): Promise<number | null> {
+  const row: { id: number } | undefined = await db()("revisions").where({ layout_id: layoutId }).orderBy("number", "desc").first("id");
+  return row?.id ?? null;
 }

@@ -4,56 +4,25 @@ import { iso, isoOrNull } from "./rows";
 import { z } from "zod";
 import type { Knex } from "knex";
 import { db, lockLayout, transaction } from "./knex";
-import { listEvents, recordEvent, type EventDto } from "./events";
+import { listEvents, recordEvent } from "./events";
 import { AppError, conflict, forbidden, notFound } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
 import type { SessionUser } from "@/lib/auth/session";
-import { enqueueMail } from "@/lib/mail/outbox";
+import type { ThreadStatus, CommentDto, ThreadDto } from "@/lib/contracts/threads";
+import { statusSchema } from "@/lib/contracts/threads";
+export type { ThreadStatus, CommentDto, ThreadDto } from "@/lib/contracts/threads";
+export { commentSchema, statusSchema } from "@/lib/contracts/threads";
 
 /** Who follows a thread: the layout's owner, the project's checker and everyone who commented on it. */
-async function followers(threadId: number): Promise<{ owner: number; checker: number | null; commenters: number[]; layoutName: string; title: string }> {
+export async function threadFollowers(threadId: number): Promise<{ owner: number; checker: number | null; commenters: number[]; layoutName: string; title: string }> {
   const t = await db()("threads as t").join("layouts as l", "l.id", "t.layout_id").join("projects as p", "p.id", "l.project_id").where("t.id", threadId).select("l.created_by", "p.checker_id", "l.name", "t.title").first();
   const commenters = (await db()("comments").where({ thread_id: threadId }).distinct("author_id")).map((r: { author_id: number }) => r.author_id);
   return { owner: t.created_by, checker: t.checker_id ?? null, commenters, layoutName: t.name, title: t.title };
 }
 
-export type ThreadStatus = "open" | "waived" | "resolved" | "reopened";
 
-export interface CommentDto {
-  id: number;
-  author: { id: number; name: string; role: string };
-  body: string;
-  createdAt: string;
-  editedAt: string | null;
-  history: { body: string; replacedAt: string }[];
-  mine: boolean;
-}
 
-export interface ThreadDto {
-  id: number;
-  layoutId: number;
-  layoutName: string;
-  projectId: number;
-  projectName: string;
-  fingerprint: string;
-  rule: string;
-  severity: "error" | "warning" | "info";
-  title: string;
-  status: ThreadStatus;
-  waiverReason: string | null;
-  waivedBy: string | null;
-  version: number;
-  readOnly: boolean;
-  appearances: { revisionId: number; revisionNumber: number; findingId: number; body: string; contacts: string[]; loadCase: string | null }[];
-  comments: CommentDto[];
-  history: EventDto[];
-}
 
-export const commentSchema = z.object({ body: z.string().trim().min(1, "Write something first.").max(20000, "A comment is at most 20,000 characters.") });
-export const statusSchema = z.discriminatedUnion("action", [
-  z.object({ action: z.literal("waive"), reason: z.string().trim().min(10, "Give a justification of at least 10 characters.").max(4000), version: z.number().int().positive() }),
-  z.object({ action: z.literal("reopen"), reason: z.string().trim().max(4000).default(""), version: z.number().int().positive() }),
-]);
 
 type Row = Record<string, unknown>;
 
@@ -153,15 +122,6 @@ export async function changeStatus(user: SessionUser, threadId: number, input: z
     }
     await recordEvent(trx, { layoutId: t.layout_id, kind: input.action, actorId: user.id, threadId, detail: { reason: input.reason, from: t.status } });
   });
-  const f = await followers(threadId);
-  await enqueueMail(
-    [f.owner, ...(f.checker ? [f.checker] : []), ...f.commenters],
-    "status",
-    `${input.action === "waive" ? "Waived" : "Reopened"}: ${f.title}`,
-    `${user.name} ${input.action === "waive" ? "waived" : "reopened"} the finding "${f.title}" on ${f.layoutName}.${input.reason ? `\n\nReason: ${input.reason}` : ""}`,
-    `/findings/${threadId}`,
-    user.id,
-  );
   return getThread(user, threadId);
 }
 
@@ -173,8 +133,8 @@ export async function mentionedUsers(body: string): Promise<{ id: number; name: 
   return users.filter((u) => handles.includes(String(u.email).split("@")[0].toLowerCase())).map((u) => ({ id: u.id as number, name: u.name as string, email: u.email as string }));
 }
 
-/** Adds a comment (designers and checkers); records mentions in the history. */
-export async function addComment(user: SessionUser, threadId: number, body: string): Promise<CommentDto> {
+/** Adds a comment (designers and checkers); records mentions in the history. Notifications: lib/review. */
+export async function addComment(user: SessionUser, threadId: number, body: string): Promise<CommentDto & { mentionedIds: number[] }> {
   if (!allowed(user.role, "comment")) throw forbidden("Your role reads threads but does not comment.");
   const mentions = await mentionedUsers(body);
   const layoutId = await layoutOfThread(threadId);
@@ -187,19 +147,7 @@ export async function addComment(user: SessionUser, threadId: number, body: stri
     await recordEvent(trx, { layoutId: t.layout_id, kind: "comment", actorId: user.id, threadId, detail: { commentId, mentions: mentions.map((m) => m.id) } });
     return commentId as number;
   });
-  const f = await followers(threadId);
-  const excerpt = body.length > 400 ? `${body.slice(0, 400)}…` : body;
-  await enqueueMail(mentions.map((m) => m.id), "mention", `${user.name} mentioned you: ${f.title}`, `${user.name} mentioned you on "${f.title}" (${f.layoutName}):\n\n${excerpt}`, `/findings/${threadId}`, user.id);
-  const mentioned = new Set(mentions.map((m) => m.id));
-  await enqueueMail(
-    [f.owner, ...(f.checker ? [f.checker] : [])].filter((id) => !mentioned.has(id)),
-    "comment",
-    `New comment: ${f.title}`,
-    `${user.name} commented on "${f.title}" (${f.layoutName}):\n\n${excerpt}`,
-    `/findings/${threadId}`,
-    user.id,
-  );
-  return (await readComments(user, { "c.id": id }))[0];
+  return { ...(await readComments(user, { "c.id": id }))[0], mentionedIds: mentions.map((m) => m.id) };
 }
 
 /** Edits one's own comment, keeping the earlier text in its history. */

@@ -6,10 +6,14 @@ import { db, transaction } from "./knex";
 import { iso } from "./rows";
 import { recordAudit } from "./audit";
 import { forgetTokens } from "./tokens";
-import { roles, type Role } from "@/lib/roles";
+import type { Role } from "@/lib/roles";
 import { allowed } from "@/lib/policy";
 import { conflict, forbidden, notFound } from "@/lib/errors";
 import type { SessionUser } from "@/lib/auth/session";
+import type { UserDto, AdminUserDto } from "@/lib/contracts/users";
+import { newUserSchema, userChangeSchema } from "@/lib/contracts/users";
+export type { UserDto, AdminUserDto } from "@/lib/contracts/users";
+export { newUserSchema, userChangeSchema } from "@/lib/contracts/users";
 
 interface UserRow {
   id: number;
@@ -21,12 +25,6 @@ interface UserRow {
   created_at: Date;
 }
 
-export interface UserDto {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-}
 
 function toDto(row: UserRow): UserDto {
   return { id: row.id, email: row.email, name: row.name, role: row.role };
@@ -60,21 +58,8 @@ export async function listMentionableUsers(): Promise<{ name: string; handle: st
   return rows.map((r) => ({ name: r.name, handle: r.email.split("@")[0], role: r.role }));
 }
 
-export interface AdminUserDto extends UserDto {
-  active: boolean;
-  createdAt: string;
-}
 
-export const newUserSchema = z.object({
-  name: z.string().trim().min(2, "Name needs at least 2 characters.").max(100, "Name is at most 100 characters."),
-  email: z.string().trim().toLowerCase().email("Enter an e-mail address.").max(200),
-  role: z.enum(roles, { error: "Pick a role." }),
-  password: z.string().min(10, "A password has at least 10 characters.").max(200),
-});
 
-export const userChangeSchema = z
-  .object({ role: z.enum(roles, { error: "Pick a role." }).optional(), active: z.boolean().optional() })
-  .refine((v) => v.role !== undefined || v.active !== undefined, { message: "Say what changes: role or active." });
 
 const adminDto = (r: UserRow): AdminUserDto => ({ ...toDto(r), active: !!r.active, createdAt: iso(r.created_at) });
 

@@ -12,11 +12,13 @@ const identifier = z
   .string({ error: "must be a text id" })
   .min(1, { error: "must not be empty" })
   .max(100, { error: "is longer than 100 characters" })
+  // eslint-disable-next-line no-control-regex -- refusing control characters is the point of this pattern
   .regex(/^[^\s\u0000-\u001f]+$/, { error: "must not contain spaces or control characters" });
 const label = z
   .string({ error: "must be text" })
   .min(1, { error: "must not be empty" })
   .max(200, { error: "is longer than 200 characters" })
+  // eslint-disable-next-line no-control-regex -- refusing control characters is the point of this pattern
   .regex(/^[^\u0000-\u001f]+$/, { error: "must not contain control characters" });
 const radius = z.union([finite.refine((v) => v !== 0, { error: "a radius of zero is not allowed (use null for flat)" }), z.null()]);
 

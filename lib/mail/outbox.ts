@@ -4,9 +4,10 @@
  * SMTP_HOST/SMTP_PORT (the local fake in development and tests).
  */
 import "server-only";
-import { iso, isoOrNull } from "@/lib/db/rows";
 import nodemailer from "nodemailer";
-import { db } from "@/lib/db/knex";
+import { dueMails, insertMails, listOutbox, mailRecipients, markFailed, markSent, mutedKinds as mutedKindsOf, setMutedKinds as storeMutedKinds } from "@/lib/db/outbox";
+
+export { listOutbox };
 
 export const mailKinds = {
   mention: "You are mentioned in a comment",
@@ -38,12 +39,9 @@ export async function enqueueMail(recipients: number[], kind: MailKind, subject:
   const ids = [...new Set(recipients)].filter((id) => id !== actorId);
   if (!ids.length) return;
   try {
-    const users = await db()("users").whereIn("id", ids).where({ active: true }).select("id", "email", "name");
-    const muted = new Set((await db()("mail_mutes").whereIn("user_id", ids).where({ kind }).select("user_id")).map((m: { user_id: number }) => m.user_id));
+    const users = await mailRecipients(ids, kind);
     const link = appLink(linkPath);
-    const rows = users
-      .filter((u: { id: number }) => !muted.has(u.id))
-      .map((u: { id: number; email: string; name: string }) => ({
+    const rows = users.map((u) => ({
         user_id: u.id,
         to_address: u.email,
         kind,
@@ -51,7 +49,7 @@ export async function enqueueMail(recipients: number[], kind: MailKind, subject:
         text_body: `Hello ${u.name},\n\n${text}\n\nOpen it: ${link}\n\nYou can mute this kind of mail in your Sixfold settings.`,
         html_body: `<p>Hello ${escapeHtml(u.name)},</p><p>${escapeHtml(text).replace(/\n/g, "<br>")}</p><p><a href="${escapeHtml(link)}">Open it in Sixfold</a></p><p style="color:#777">You can mute this kind of mail in your Sixfold settings.</p>`,
       }));
-    if (rows.length) await db()("mail_outbox").insert(rows);
+    await insertMails(rows);
   } catch (err) {
     console.error("[mail] could not queue a notification; the action itself is kept", err);
     return;
@@ -92,22 +90,15 @@ export async function flushOutbox(limit = 50): Promise<number> {
   flushing = true;
   let sent = 0;
   try {
-    const due = await db()("mail_outbox").where({ status: "pending" }).where("next_attempt_at", "<=", db().fn.now(3)).orderBy("id").limit(limit);
+    const due = await dueMails(limit);
     for (const m of due) {
       try {
         await transport().sendMail({ from: process.env.MAIL_FROM ?? "Sixfold <sixfold@larkspur.example>", to: m.to_address, subject: m.subject, text: m.text_body, html: m.html_body });
-        await db()("mail_outbox").where({ id: m.id }).update({ status: "sent", sent_at: db().fn.now(3), attempts: m.attempts + 1, last_error: null });
+        await markSent(m.id, m.attempts + 1);
         sent++;
       } catch (err) {
         const attempts = m.attempts + 1;
-        await db()("mail_outbox")
-          .where({ id: m.id })
-          .update({
-            attempts,
-            last_error: String((err as Error).message).slice(0, 1000),
-            status: attempts >= MAX_ATTEMPTS ? "failed" : "pending",
-            next_attempt_at: new Date(Date.now() + backoffSeconds(attempts) * 1000),
-          });
+        await markFailed(m.id, attempts, String((err as Error).message), attempts >= MAX_ATTEMPTS, new Date(Date.now() + backoffSeconds(attempts) * 1000));
       }
     }
   } finally {
@@ -116,32 +107,12 @@ export async function flushOutbox(limit = 50): Promise<number> {
   return sent;
 }
 
-/** The outbox for the admin page, newest first. */
-export async function listOutbox(limit = 200) {
-  const rows = await db()("mail_outbox").orderBy("id", "desc").limit(limit);
-  return rows.map((r: Record<string, unknown>) => ({
-    id: r.id as number,
-    to: r.to_address as string,
-    kind: r.kind as string,
-    subject: r.subject as string,
-    body: r.text_body as string,
-    status: r.status as string,
-    attempts: r.attempts as number,
-    lastError: (r.last_error as string | null) ?? null,
-    createdAt: iso(r.created_at),
-    sentAt: isoOrNull(r.sent_at),
-  }));
-}
-
 /** Kinds a user has muted. */
 export async function mutedKinds(userId: number): Promise<MailKind[]> {
-  return (await db()("mail_mutes").where({ user_id: userId }).select("kind")).map((r: { kind: MailKind }) => r.kind);
+  return mutedKindsOf<MailKind>(userId);
 }
 
 /** Sets the muted kinds of a user. */
 export async function setMutedKinds(userId: number, kinds: MailKind[]): Promise<void> {
-  await db().transaction(async (trx) => {
-    await trx("mail_mutes").where({ user_id: userId }).delete();
-    if (kinds.length) await trx("mail_mutes").insert(kinds.map((kind) => ({ user_id: userId, kind })));
-  });
+  await storeMutedKinds(userId, kinds);
 }

@@ -1,8 +1,5 @@
-/** The release report in markdown: summary, findings with their numbers, waivers, release record, caution. */
-import "server-only";
-import { db } from "@/lib/db/knex";
-import { getRevision } from "@/lib/db/revisions";
-import type { SessionUser } from "@/lib/auth/session";
+/** The release report in markdown, rendered from loaded data (pure): summary, every load case, findings, waivers, release record, one caution. */
+import type { ReleaseReportData } from "@/lib/contracts/report";
 import { num, vec } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
 import { CAUTION } from "@/rules/describe";
@@ -14,10 +11,10 @@ import { summariseLoadCases } from "./load-case-summary";
  * only by the approval itself, for the record it stores in the same transaction; otherwise the approval
  * line comes from the stored release record alone, and a revision without one prints as a draft.
  */
-export async function releaseReportMarkdown(user: SessionUser, revisionId: number, approval?: { by: string; at: Date }): Promise<string> {
-  const rev = await getRevision(user, revisionId);
-  const layout = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layoutId).select("l.name", "p.name as project").first();
-  const threads: { id: number; status: string; waiver_reason: string | null; waiver: string | null }[] = await db()("threads as t").leftJoin("users as u", "u.id", "t.waived_by").whereIn("t.id", rev.findings.map((f) => f.threadId)).select("t.id", "t.status", "t.waiver_reason", "u.name as waiver");
+export function renderReleaseReport(data: ReleaseReportData, approval?: { by: string; at: Date }): string {
+  const rev = data.revision;
+  const layout = { name: data.layoutName, project: data.projectName };
+  const threads = data.threads;
   const byThread = new Map(threads.map((t) => [t.id, t]));
   const r = rev.report;
   const u = unitLabel(r.units.length);
@@ -39,14 +36,7 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   lines.push("");
   const overridden = Object.entries(rev.overrides);
   if (overridden.length) {
-    // the reason and author of each override as it stood when the revision was analysed
-    const rows: { rule: string; reason: string; who: string }[] = await db()("rule_overrides as o")
-      .join("layouts as l", "l.project_id", "o.project_id")
-      .join("users as u", "u.id", "o.set_by")
-      .where("l.id", rev.layoutId)
-      .where("o.created_at", "<=", new Date(rev.createdAt))
-      .orderBy("o.id", "desc")
-      .select("o.rule", "o.reason", "u.name as who");
+    const rows = data.overrideReasons;
     lines.push("## Rule overrides of the project (in force for this revision)", "", "| rule | severity | options | reason | set by |", "|---|---|---|---|---|");
     for (const [rule, o] of overridden) {
       const why = rows.find((x) => x.rule === rule);
@@ -72,7 +62,7 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   for (const f of rev.findings) {
     const t = byThread.get(f.threadId);
     lines.push(`### [${f.severity}] ${f.rule}: ${f.title}`, "", `Status: **${t?.status ?? f.status}**${f.loadCase ? ` · load case ${f.loadCase}` : ""}`, "");
-    if (t?.status === "waived") lines.push(`Waived by ${t.waiver ?? "a checker"}: ${t.waiver_reason}`, "");
+    if (t?.status === "waived") lines.push(`Waived by ${t.waivedBy ?? "a checker"}: ${t.waiverReason}`, "");
     // the caution stands once, at the end of the report, not after every finding
     lines.push(f.body.replace(CAUTION, "").replace(/^#+ /gm, "**").trim(), "");
   }
@@ -81,7 +71,7 @@ export async function releaseReportMarkdown(user: SessionUser, revisionId: numbe
   if (!waived.length) lines.push("None.", "");
   for (const f of waived) {
     const t = byThread.get(f.threadId)!;
-    lines.push(`- **${f.title}** — ${t.waiver}: ${t.waiver_reason}`);
+    lines.push(`- **${f.title}** — ${t.waivedBy}: ${t.waiverReason}`);
   }
   lines.push("", "## Release record", "");
   if (rev.release) {

@@ -10,7 +10,7 @@ const { getRevision } = await import("@/lib/db/revisions");
 const { blockingFindings } = await import("@/lib/db/releases");
 const { uploadRevision } = await import("@/lib/upload");
 const { closeAnalysisPool } = await import("@/lib/worker/run-analysis");
-const { releaseReportMarkdown } = await import("@/lib/report/markdown");
+const { releaseReportMarkdown } = await import("@/lib/report/release");
 const { db } = await import("@/lib/db/knex");
 
 const knex = testKnex();

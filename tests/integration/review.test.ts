@@ -10,7 +10,7 @@ const { createLayout, listLayouts } = await import("@/lib/db/layouts");
 const { storeRevision, getRevision, recordRefusedUpload, diffRevisions } = await import("@/lib/db/revisions");
 const { addComment, changeStatus, editComment, getThread, listThreads } = await import("@/lib/db/threads");
 const { approveRelease, requestRelease } = await import("@/lib/db/releases");
-const { releaseReportMarkdown } = await import("@/lib/report/markdown");
+const { releaseReportMarkdown } = await import("@/lib/report/release");
 const { db } = await import("@/lib/db/knex");
 
 const knex = testKnex();

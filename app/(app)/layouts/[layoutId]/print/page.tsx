@@ -1,9 +1,8 @@
 /** The printable release report of a revision: the drawing views (the same SVG as on screen) and the report text. */
 import type { Metadata } from "next";
 import { requirePageUser } from "@/lib/auth/session";
-import { db } from "@/lib/db/knex";
-import { getRevision } from "@/lib/db/revisions";
-import { releaseReportMarkdown } from "@/lib/report/markdown";
+import { getRevision, latestRevisionId } from "@/lib/db/revisions";
+import { currentReportMarkdown } from "@/lib/report/release";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import { MarkdownView } from "@/components/markdown/markdown-view";
 import { PrintButton } from "@/components/ui/print-button";
@@ -16,12 +15,11 @@ export default async function PrintPage({ params, searchParams }: { params: Prom
   const { layoutId } = await params;
   const { revision } = await searchParams;
   const user = await requirePageUser(`/layouts/${layoutId}/print`);
-  const id = Number(revision) || (await db()("revisions").where({ layout_id: Number(layoutId) || 0 }).orderBy("number", "desc").first())?.id;
+  const id = Number(revision) || (await latestRevisionId(Number(layoutId) || 0));
   if (!id) notFound();
   const rev = await getRevision(user, id).catch(() => null);
   if (!rev || rev.layoutId !== Number(layoutId)) notFound();
-  const stored = await db()("releases").where({ revision_id: id }).whereNotNull("report_md").first();
-  const md: string = stored?.report_md ?? (await releaseReportMarkdown(user, id));
+  const md = await currentReportMarkdown(user, id);
   const [title, ...rest] = md.split("\n");
   return (
     <article className="mx-auto max-w-4xl space-y-4 bg-white p-6 print:p-0" data-testid="printable-report">

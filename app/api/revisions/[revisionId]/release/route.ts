@@ -2,10 +2,10 @@
 import { z } from "zod";
 import { requireRole } from "@/lib/auth/session";
 import { handle, idFrom, jsonBody, parseWith } from "@/lib/api/handler";
-import { approveRelease, requestRelease, withdrawRelease } from "@/lib/db/releases";
+import { withdrawRelease } from "@/lib/db/releases";
+import { approveAndRelease, askForRelease } from "@/lib/review/actions";
 import { forbidden } from "@/lib/errors";
 import { allowed } from "@/lib/policy";
-import { releaseReportMarkdown } from "@/lib/report/markdown";
 
 export const dynamic = "force-dynamic";
 const bodySchema = z.object({ action: z.enum(["request", "withdraw", "approve"]) });
@@ -16,7 +16,7 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ revisio
   const { action } = parseWith(bodySchema, await jsonBody(req));
   if (action === "request") {
     if (!allowed(user.role, "requestRelease")) throw forbidden("Only designers request a release.");
-    await requestRelease(user, id);
+    await askForRelease(user, id);
     return Response.json({ ok: true, status: "requested" }, { status: 201 });
   }
   if (action === "withdraw") {
@@ -25,6 +25,6 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ revisio
     return Response.json({ ok: true, status: "withdrawn" }, { status: 200 });
   }
   if (!allowed(user.role, "approveRelease")) throw forbidden("Only checkers approve a release.");
-  await approveRelease(user, id, (rid, approval) => releaseReportMarkdown(user, rid, approval));
+  await approveAndRelease(user, id);
   return Response.json({ ok: true, status: "released" }, { status: 200 });
 });

@@ -2,9 +2,8 @@
 import { z } from "zod";
 import { requireUser } from "@/lib/auth/session";
 import { handle, idFrom, parseWith } from "@/lib/api/handler";
-import { db } from "@/lib/db/knex";
 import { getRevision } from "@/lib/db/revisions";
-import { releaseReportMarkdown } from "@/lib/report/markdown";
+import { currentReportMarkdown } from "@/lib/report/release";
 import { reportPdf } from "@/lib/report/pdf";
 
 export const dynamic = "force-dynamic";
@@ -15,8 +14,7 @@ export const GET = handle(async (req: Request, ctx: { params: Promise<{ revision
   const id = await idFrom(ctx.params, "revisionId");
   const { format } = parseWith(querySchema, Object.fromEntries(new URL(req.url).searchParams));
   const rev = await getRevision(user, id);
-  const stored = await db()("releases").where({ revision_id: id }).whereNotNull("report_md").first();
-  const md: string = stored?.report_md ?? (await releaseReportMarkdown(user, id));
+  const md = await currentReportMarkdown(user, id);
   const base = `sixfold-layout-${rev.layoutId}-r${rev.number}`;
   if (format === "md") {
     return new Response(md, { status: 200, headers: { "content-type": "text/markdown; charset=utf-8", "content-disposition": `attachment; filename="${base}.md"` } });
