@@ -20,10 +20,16 @@ export const uploadOptionsSchema = z.object({
   force: z.enum(forceUnits).optional(),
 });
 
-export type UploadResult = { ok: true; revision: RevisionSummaryDto; report: Report; warnings: string[] } | { ok: false; errors: { location: string; message: string }[] };
+export type UploadResult =
+  { ok: true; revision: RevisionSummaryDto; report: Report; warnings: string[] } | { ok: false; errors: { location: string; message: string }[] };
 
 /** Validates, analyses (in a worker) and stores a revision, or records the refused attempt. */
-export async function uploadRevision(user: SessionUser, layoutId: number, bytes: Uint8Array, options: z.infer<typeof uploadOptionsSchema>): Promise<UploadResult> {
+export async function uploadRevision(
+  user: SessionUser,
+  layoutId: number,
+  bytes: Uint8Array,
+  options: z.infer<typeof uploadOptionsSchema>,
+): Promise<UploadResult> {
   if (!allowed(user.role, "uploadRevision")) throw forbidden("Only designers upload revisions.");
   if (!(await layoutExists(layoutId))) throw notFound("That layout");
   // an empty or oversized file is refused like any other bad file: located errors, the attempt recorded
@@ -37,11 +43,25 @@ export async function uploadRevision(user: SessionUser, layoutId: number, bytes:
   const overrides = await overridesForLayout(layoutId);
   // the project's materials library resolves ids the file does not declare; the stored layout keeps the copy used
   const library = await materialsForLayout(layoutId);
-  const outcome = await analyseInWorker(bytes, { fileName: options.fileName, encoding: options.encoding as Encoding | undefined, length: options.length, force: options.force, overrides, library });
+  const outcome = await analyseInWorker(bytes, {
+    fileName: options.fileName,
+    encoding: options.encoding as Encoding | undefined,
+    length: options.length,
+    force: options.force,
+    overrides,
+    library,
+  });
   if (!outcome.ok) {
     await recordRefusedUpload(user, layoutId, options.fileName, bytes.byteLength, outcome.errors);
     return { ok: false, errors: outcome.errors };
   }
-  const revision = await storeRevision(user, layoutId, { fileName: options.fileName, encoding: outcome.encoding, raw: outcome.text, layout: outcome.layout, report: outcome.report, overrides });
+  const revision = await storeRevision(user, layoutId, {
+    fileName: options.fileName,
+    encoding: outcome.encoding,
+    raw: outcome.text,
+    layout: outcome.layout,
+    report: outcome.report,
+    overrides,
+  });
   return { ok: true, revision, report: outcome.report, warnings: outcome.warnings ?? [] };
 }

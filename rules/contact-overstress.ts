@@ -12,7 +12,8 @@ export default defineRule({
     summary: "Hertz maximum contact pressure above the allowable of the weaker material.",
     explanation:
       "Each contact with Hertz data is solved at its seated force in every load case: contact modulus, principal relative radii, semi-axes, maximum pressure p0, approach and stiffness (elliptical contacts by the exact elliptic-integral solution). p0 is compared with the lower allowable pressure of the two materials. One finding per contact lists every load case that exceeds, worst first. Precision mounts usually stay well below static ratings for repeatability; a project can lower the allowable with the `derate` option. A ball in a true cone touches along a ring, not at points: model a socket as three point contacts.",
-    source: "Johnson, Contact Mechanics (CUP 1985) §3–§4; Roark's Formulas for Stress and Strain, Table 14.1; ISO 76 static load rating (4200 MPa for ball bearings)",
+    source:
+      "Johnson, Contact Mechanics (CUP 1985) §3–§4; Roark's Formulas for Stress and Strain, Table 14.1; ISO 76 static load rating (4200 MPa for ball bearings)",
     options: z.object({ derate: z.number().positive().max(1).default(1) }),
   },
   check({ layout, analysis, options }) {
@@ -33,7 +34,8 @@ export default defineRule({
       rows.sort((a, b) => b.h.maxPressureMPa / b.allow - a.h.maxPressureMPa / a.allow);
       const worst = rows[0];
       const table = [`| load case | max. pressure (MPa) | allowable (MPa) | contact ellipse semi-axes (${u}) | approach (µm) |`, "|---|---|---|---|---|"];
-      for (const r of rows) table.push(`| ${r.caseId} | ${num(r.h.maxPressureMPa)} | ${num(r.allow)} | ${num(r.h.semiMajor)} × ${num(r.h.semiMinor)} | ${num(r.h.approachUm)} |`);
+      for (const r of rows)
+        table.push(`| ${r.caseId} | ${num(r.h.maxPressureMPa)} | ${num(r.allow)} | ${num(r.h.semiMajor)} × ${num(r.h.semiMinor)} | ${num(r.h.approachUm)} |`);
       out.push({
         title: `${c.id} at ${num(worst.h.maxPressureMPa)} MPa exceeds ${num(worst.allow)} MPa${rows.length > 1 ? ` (worst of ${rows.length} load cases: ${worst.caseId})` : ` (load case ${worst.caseId})`}`,
         body: [

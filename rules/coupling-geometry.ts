@@ -10,7 +10,8 @@ export default defineRule({
     summary: "A vee groove is laid more than the threshold off its guideline (bisector, or line to the socket).",
     explanation:
       "In a three-vee coupling each groove should lie along the bisector of the coupling triangle's angle at its seat; laid across it, the coupling can turn about the vertical. In a socket–vee–flat coupling the vee should point at the socket. Couplings are recognised from feature groups (two contacts a vee, three a socket, one a flat); the seat centre is the mean of its contact points. Contact angles (normal against the triangle plane's normal; 45° is the usual choice) are listed.",
-    source: "Slocum, Precision Machine Design (1992), kinematic coupling design; Slocum, Precision Engineering 14 (1992) 'Design of three-groove kinematic couplings'",
+    source:
+      "Slocum, Precision Machine Design (1992), kinematic coupling design; Slocum, Precision Engineering 14 (1992) 'Design of three-groove kinematic couplings'",
     options: z.object({ maxOffDeg: z.number().positive().max(90).default(10) }),
   },
   check({ analysis, options }) {
@@ -18,7 +19,9 @@ export default defineRule({
     for (const cp of analysis.couplings) {
       const off = cp.seats.filter((s) => s.grooveOffDeg !== undefined && s.grooveOffDeg > options.maxOffDeg);
       if (!off.length) continue;
-      const angles = Object.entries(cp.contactAnglesDeg).map(([id, a]) => `${id} ${num(a, 3)}°`).join(", ");
+      const angles = Object.entries(cp.contactAnglesDeg)
+        .map(([id, a]) => `${id} ${num(a, 3)}°`)
+        .join(", ");
       out.push({
         title: `${cp.kind === "three-vee" ? "Three-vee" : "Socket–vee–flat"} coupling of ${cp.body}: ${off.map((s) => `${s.feature} ${num(s.grooveOffDeg!, 3)}°`).join(", ")} off`,
         body: [

@@ -35,7 +35,9 @@ export function rowLabel(layout: Layout, rowId: string): string {
 
 /** Bodies that move in a motion. */
 export function movingBodies(m: Motion): string[] {
-  return Object.entries(m.screws).filter(([, s]) => s.kind !== "still").map(([id]) => id);
+  return Object.entries(m.screws)
+    .filter(([, s]) => s.kind !== "still")
+    .map(([id]) => id);
 }
 
 /** One line describing a body's screw, with units. */
@@ -77,7 +79,8 @@ export function stoppingContact(layout: Layout, m: Motion): { point: Vec3; norma
   for (const c of layout.contacts) {
     const rel = sub(pointVelocity(m, c.body, c.point), pointVelocity(m, c.on, c.point));
     const speed = norm(rel);
-    if (!best || speed > best.speed * (1 + 1e-9)) best = { point: c.point, normal: scale(rel, 1 / (speed || 1)), body: c.body, on: c.on, feature: c.feature, contact: c.id, speed };
+    if (!best || speed > best.speed * (1 + 1e-9))
+      best = { point: c.point, normal: scale(rel, 1 / (speed || 1)), body: c.body, on: c.on, feature: c.feature, contact: c.id, speed };
   }
   for (const b of layout.bodies) {
     if (!b.centerOfMass) continue;

@@ -13,7 +13,8 @@ export default defineRule({
     summary: "Over-constrained support to ground: a deforming base changes the contact forces.",
     explanation:
       "A base that warps moves the ground contacts along their normals by d. The contact forces change by Δλ = S d with S = K − KJ(JᵀKJ)⁺JᵀK. With no redundant support S = 0: the part follows the base as a rigid body and its loads and shape do not change. With a redundant support the part must bend to stay on all its seats: the base's shape leaks into the part. The finding gives, per micrometre of rise of each support, the largest force change, and compares it with the mean seated force.",
-    source: "Compatibility and stiffness method of structural analysis (flexibility/stiffness of redundant supports); self-stress after Pellegrino & Calladine, IJSS 22 (1986)",
+    source:
+      "Compatibility and stiffness method of structural analysis (flexibility/stiffness of redundant supports); self-stress after Pellegrino & Calladine, IJSS 22 (1986)",
     options: z.object({ fraction: z.number().positive().default(0.01) }),
   },
   check({ layout, analysis, options }) {
@@ -31,16 +32,24 @@ export default defineRule({
     const lines: string[] = [];
     if (f) {
       lines.push(`A 1 µm rise of one support changes a contact force by up to **${num(f.maxPerMicrometre)} ${fu}** (stiffness: ${f.stiffness}).`);
-      if (mean > 0) lines.push(`That is ${num((f.maxPerMicrometre / mean) * 100, 3)} % of the mean seated force ${num(mean)} ${fu} (threshold ${options.fraction * 100} %).`);
+      if (mean > 0)
+        lines.push(
+          `That is ${num((f.maxPerMicrometre / mean) * 100, 3)} % of the mean seated force ${num(mean)} ${fu} (threshold ${options.fraction * 100} %).`,
+        );
       lines.push("", "| support rises 1 µm | largest change | at |", "|---|---|---|");
       for (const [g, col] of Object.entries(f.sensitivity)) {
         const [at, v] = Object.entries(col).reduce((a, b) => (Math.abs(b[1]) > Math.abs(a[1]) ? b : a));
         lines.push(`| ${g} | ${num(v)} ${fu} | ${at} |`);
       }
     } else {
-      lines.push("The support to ground is over-constrained. The file gives no contact stiffness (or no seated load for Hertz stiffness), so the size of the effect is not computed: with equal stiffness assumed it has no magnitude.");
+      lines.push(
+        "The support to ground is over-constrained. The file gives no contact stiffness (or no seated load for Hertz stiffness), so the size of the effect is not computed: with equal stiffness assumed it has no magnitude.",
+      );
     }
-    lines.push("", `The base's shape reaches the part through ${involved.join(", ")}. **Repair.** Support on three seats (exact constraint), or make one support compliant along its normal.`);
+    lines.push(
+      "",
+      `The base's shape reaches the part through ${involved.join(", ")}. **Repair.** Support on three seats (exact constraint), or make one support compliant along its normal.`,
+    );
     return [
       {
         title: f ? `Base warp reaches the part: ${num(f.maxPerMicrometre)} ${fu} per µm` : "Base warp reaches the part (over-constrained support)",

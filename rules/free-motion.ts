@@ -24,7 +24,9 @@ export default defineRule({
     const hints = freeMotions.map((m, i) => {
       const h = stoppingContact(layout, m);
       if (!h) return `${i + 1}. add a contact on a moving body along its motion`;
-      const at = h.contact ? `at contact ${h.contact}${h.feature ? ` (feature ${h.feature})` : ""}, point ${vec(h.point, u)}` : `at the mass centre of ${h.body}, ${vec(h.point, u)}`;
+      const at = h.contact
+        ? `at contact ${h.contact}${h.feature ? ` (feature ${h.feature})` : ""}, point ${vec(h.point, u)}`
+        : `at the mass centre of ${h.body}, ${vec(h.point, u)}`;
       return `${i + 1}. a contact ${at}, normal ${dir(h.normal)}, between ${h.body} and ${h.on}`;
     });
     const intended = layout.intendedFreedoms ? ` The layout intends ${layout.intendedFreedoms}; ${extra} more must be stopped.` : "";

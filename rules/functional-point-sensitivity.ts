@@ -24,7 +24,9 @@ export default defineRule({
         worst = Math.max(worst, mag);
         rows.push(`| ${g} | ${vec(d)} | ${num(mag)} |`);
       }
-      const seated = pm.seatedUm ? `Under the seated load (first load case) the point moves ${vec(pm.seatedUm, "µm")}.` : "The seated displacement needs contact stiffness (file or Hertz data) and a load.";
+      const seated = pm.seatedUm
+        ? `Under the seated load (first load case) the point moves ${vec(pm.seatedUm, "µm")}.`
+        : "The seated displacement needs contact stiffness (file or Hertz data) and a load.";
       return {
         title: `${id}: up to ${num(worst)} µm per µm of support rise`,
         body: [`Functional point **${id}** on ${pm.body}.`, "", rows.join("\n"), "", seated].join("\n"),

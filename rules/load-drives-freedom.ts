@@ -25,7 +25,9 @@ export default defineRule({
           body: [
             `In load case **${c.id}** (acceleration ${vec(c.gravity, "m/s²")}) the external wrench has a component along a motion that the ${lifted.length ? "remaining " : ""}contacts do not stop, so the part is not held and seating forces are undefined.`,
             lifted.length ? `\nSeats released by the active-set solution: ${lifted.join(", ")}.` : "",
-            analysis.constraint.counts.freedoms > 0 ? `\nThe layout has ${analysis.constraint.counts.freedoms} free motion(s); see the free-motion finding for their axes (lengths in ${u}).` : "",
+            analysis.constraint.counts.freedoms > 0
+              ? `\nThe layout has ${analysis.constraint.counts.freedoms} free motion(s); see the free-motion finding for their axes (lengths in ${u}).`
+              : "",
             "\n**Repair.** Add a contact along the driven motion, or add preload that keeps the seats closed in this case.",
           ].join(""),
           contacts: lifted.slice().sort(),

@@ -27,11 +27,17 @@ export default defineRule({
     const seats = layout.contacts.filter((c) => !c.flexure);
     const noHertz = seats.filter((c) => !c.hertz).map((c) => c.id);
     if (seats.length && noHertz.length) {
-      skipped.push({ key: "Contact stress (Hertz)", text: `**Contact stress (Hertz)** — ${noHertz.length} of ${seats.length} contacts have no Hertz data${list(noHertz)}.` });
+      skipped.push({
+        key: "Contact stress (Hertz)",
+        text: `**Contact stress (Hertz)** — ${noHertz.length} of ${seats.length} contacts have no Hertz data${list(noHertz)}.`,
+      });
     }
     const unusable = seats.filter((c) => c.hertz && !hertzUsable(layout, c)).map((c) => c.id);
     if (unusable.length) {
-      skipped.push({ key: "hertz-materials", text: `**Contact stress (Hertz)** — ${unusable.length} contacts name a material without Young's modulus or Poisson's ratio${list(unusable)}.` });
+      skipped.push({
+        key: "hertz-materials",
+        text: `**Contact stress (Hertz)** — ${unusable.length} contacts name a material without Young's modulus or Poisson's ratio${list(unusable)}.`,
+      });
     }
     const rows = layout.contacts;
     const unstiff = rows.filter((c) => c.stiffness === undefined).map((c) => c.id);
@@ -44,7 +50,10 @@ export default defineRule({
     const allStiff = rows.length > 0 && unstiff.length === 0;
     const allHertz = rows.length > 0 && rows.every((c) => hertzUsable(layout, c));
     if (analysis.constraint.counts.redundancies > 0 && !allStiff && !allHertz) {
-      skipped.push({ key: "Foundation coupling magnitude", text: "**Foundation coupling magnitude** — the support is over-constrained but not every contact has a stiffness or Hertz data." });
+      skipped.push({
+        key: "Foundation coupling magnitude",
+        text: "**Foundation coupling magnitude** — the support is over-constrained but not every contact has a stiffness or Hertz data.",
+      });
     }
     const someMaterial = layout.groundMaterial !== undefined || layout.bodies.some((b) => b.material !== undefined);
     if (someMaterial) {
@@ -56,7 +65,10 @@ export default defineRule({
     }
     const scatterGiven = layout.defaultScatter !== undefined || rows.some((c) => c.scatter !== undefined);
     if (!scatterGiven && layout.points.some((p) => p.allowance !== undefined)) {
-      skipped.push({ key: "repeatability", text: "**Repeatability** — functional points have an allowance but no contact or flexure gives a scatter (nor defaultScatter)." });
+      skipped.push({
+        key: "repeatability",
+        text: "**Repeatability** — functional points have an allowance but no contact or flexure gives a scatter (nor defaultScatter).",
+      });
     }
     if (!skipped.length) return [];
     return [

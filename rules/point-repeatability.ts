@@ -15,7 +15,8 @@ export default defineRule({
     summary: "Repeatability of each functional point from seat scatter: 1σ per axis, 3σ ellipsoid and the seats that dominate.",
     explanation:
       "From one seating to the next each seat lands a little differently along its normal. With independent normal scatter s on every kept row, the body twists by δt = G δg (the weighted map of the temperature analysis) and a point moves by v + ω × q; its covariance is C = P G diag(s²) Gᵀ Pᵀ. The finding gives 1σ per axis, three times the largest semi-axis of the ellipsoid, and the seats with the largest share of the variance — the ones to improve first. It becomes a warning when 3σ exceeds the point's allowance.",
-    source: "Linear propagation of independent errors (covariance law, GUM JCGM 100:2008 §5.1); error budgeting of kinematic couplings (precision-engineering practice)",
+    source:
+      "Linear propagation of independent errors (covariance law, GUM JCGM 100:2008 §5.1); error budgeting of kinematic couplings (precision-engineering practice)",
     options: z.object({}),
   },
   check({ layout, analysis }) {
@@ -39,9 +40,15 @@ export default defineRule({
         .slice(0, TOP)
         .map(([c, share]) => `${rowLabel(layout, c)} ${num(share * 100, 3)} %`)
         .join(", ");
-      lines.push(`| ${id} | ${vec(p.sigmaUm)} | ${num(three)} µm${exceeds ? " **over**" : ""} | ${allowance === undefined ? "—" : `${num(allowance)} ${u}`} | ${top || "—"} |`);
+      lines.push(
+        `| ${id} | ${vec(p.sigmaUm)} | ${num(three)} µm${exceeds ? " **over**" : ""} | ${allowance === undefined ? "—" : `${num(allowance)} ${u}`} | ${top || "—"} |`,
+      );
     }
-    if (over.length) lines.push("", `**${over.join(", ")}** scatter${over.length === 1 ? "s" : ""} more than allowed (3σ). **Repair.** Improve the seats at the top of the list (finish, preload, harder contact), or move the point toward the coupling's centre.`);
+    if (over.length)
+      lines.push(
+        "",
+        `**${over.join(", ")}** scatter${over.length === 1 ? "s" : ""} more than allowed (3σ). **Repair.** Improve the seats at the top of the list (finish, preload, harder contact), or move the point toward the coupling's centre.`,
+      );
     return [
       {
         title: over.length ? `Repeatability over the allowance at ${over.join(", ")}` : `Repeatability: 3σ up to ${num(worst)} µm at the functional points`,

@@ -26,7 +26,11 @@ export default defineRule({
     lines.push(
       `Expansion coefficients: base ${num(t.alpha.ground * 1e6)} µm/(m·K); ${layout.bodies.map((b) => `${b.id} ${num(t.alpha[b.id] * 1e6)} µm/(m·K)`).join("; ")}. Swing ${t.swingK === null ? "not given (1 K used)" : `${num(swing)} K`}.`,
     );
-    if (t.undetermined) lines.push("", "The kept seats leave a free motion: the drift shown is the smallest motion that satisfies the seats (undetermined along the free motion).");
+    if (t.undetermined)
+      lines.push(
+        "",
+        "The kept seats leave a free motion: the drift shown is the smallest motion that satisfies the seats (undetermined along the free motion).",
+      );
     lines.push("", "| body | thermal centre |", "|---|---|");
     for (const [id, b] of Object.entries(t.bodies)) lines.push(`| ${id} | ${b.centre ? vec(b.centre, u) : "none (same expansion as the base)"} |`);
     const over: string[] = [];
@@ -40,10 +44,16 @@ export default defineRule({
         const allowUm = allowance === undefined ? null : allowance * toUm;
         const exceeds = allowUm !== null && overSwing > allowUm;
         if (exceeds) over.push(id);
-        lines.push(`| ${id} | ${vec(p.driftUmPerK)} | ${num(perK)} µm | ${num(overSwing)} µm${exceeds ? " **over**" : ""} | ${allowance === undefined ? "—" : `${num(allowance)} ${u}`} |`);
+        lines.push(
+          `| ${id} | ${vec(p.driftUmPerK)} | ${num(perK)} µm | ${num(overSwing)} µm${exceeds ? " **over**" : ""} | ${allowance === undefined ? "—" : `${num(allowance)} ${u}`} |`,
+        );
       }
     }
-    if (over.length) lines.push("", `**${over.join(", ")}** drift${over.length === 1 ? "s" : ""} more than allowed. **Repair.** Move the thermal centre toward the point (turn the grooves so their axes meet under it), or match the expansion of part and base.`);
+    if (over.length)
+      lines.push(
+        "",
+        `**${over.join(", ")}** drift${over.length === 1 ? "s" : ""} more than allowed. **Repair.** Move the thermal centre toward the point (turn the grooves so their axes meet under it), or match the expansion of part and base.`,
+      );
     const worst = pts.reduce((a, [, p]) => Math.max(a, norm(p.driftUmPerK)), 0);
     return [
       {

@@ -28,18 +28,29 @@ export default defineRule({
     const rows = t.fightingRows;
     const names = rowNames(layout, rows);
     const lines: string[] = [];
-    lines.push(`The support has ${t.redundancies} redundant constraint${t.redundancies === 1 ? "" : "s"} in service, and the expansion mismatch is fought by **${names.join(", ")}**.`);
+    lines.push(
+      `The support has ${t.redundancies} redundant constraint${t.redundancies === 1 ? "" : "s"} in service, and the expansion mismatch is fought by **${names.join(", ")}**.`,
+    );
     if (t.forcesPerK && maxPerK !== null) {
       lines.push("", `| row | force change per K (${fu}) | over ${num(swing)} K (${fu}) |`, "|---|---|---|");
       for (const id of rows) lines.push(`| ${rowLabel(layout, id)} | ${num(t.forcesPerK[id])} | ${num(t.forcesPerK[id] * swing)} |`);
-      lines.push("", `Largest change **${num(maxPerK * swing)} ${fu}** over ${num(swing)} K (stiffness: ${t.stiffness})${mean > 0 ? `, ${num(((maxPerK * swing) / mean) * 100, 3)} % of the mean seated force ${num(mean)} ${fu} (threshold ${options.fraction * 100} %)` : ""}.`);
+      lines.push(
+        "",
+        `Largest change **${num(maxPerK * swing)} ${fu}** over ${num(swing)} K (stiffness: ${t.stiffness})${mean > 0 ? `, ${num(((maxPerK * swing) / mean) * 100, 3)} % of the mean seated force ${num(mean)} ${fu} (threshold ${options.fraction * 100} %)` : ""}.`,
+      );
     } else {
       lines.push("", "No contact stiffness magnitude is known (equal stiffness assumed), so the size of the force change is not computed.");
     }
-    lines.push("", "**Repair.** Remove the redundancy (exact constraint lets the part grow freely about its thermal centre), make one seat compliant along its normal, or match the expansion of part and base.");
+    lines.push(
+      "",
+      "**Repair.** Remove the redundancy (exact constraint lets the part grow freely about its thermal centre), make one seat compliant along its normal, or match the expansion of part and base.",
+    );
     return [
       {
-        title: maxPerK !== null ? `Thermal growth is fought: up to ${num(maxPerK)} ${fu}/K at ${names.slice(0, 4).join(", ")}` : `Thermal growth is fought by ${names.slice(0, 4).join(", ")}`,
+        title:
+          maxPerK !== null
+            ? `Thermal growth is fought: up to ${num(maxPerK)} ${fu}/K at ${names.slice(0, 4).join(", ")}`
+            : `Thermal growth is fought by ${names.slice(0, 4).join(", ")}`,
         body: lines.join("\n"),
         contacts: rows.slice().sort(),
         features: featuresOf(layout, rows),

@@ -69,7 +69,9 @@ export function defineRule<O>(rule: Rule<O>): Rule<O> {
 
 /** A stable fingerprint: rule id + sorted involved ids (+ pivot, + load case). */
 export function fingerprintOf(ruleId: string, d: FindingDraft): string {
-  const ids = [...new Set([...(d.contacts ?? []), ...(d.features ?? []).map((f) => `feature:${f}`), ...(d.bodies ?? []).map((b) => `body:${b}`), ...(d.keys ?? [])])].sort();
+  const ids = [
+    ...new Set([...(d.contacts ?? []), ...(d.features ?? []).map((f) => `feature:${f}`), ...(d.bodies ?? []).map((b) => `body:${b}`), ...(d.keys ?? [])]),
+  ].sort();
   let fp = `${ruleId}|${ids.join(",")}`;
   if (d.pivot) fp += `|pivot:${d.pivot}`;
   if (d.loadCase) fp += `|case:${d.loadCase}`;

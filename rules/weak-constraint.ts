@@ -11,7 +11,8 @@ export default defineRule({
     summary: "Conditioning σ_r / σ_max below the threshold: some direction is held only weakly.",
     explanation:
       "Conditioning is the smallest kept singular value of the scaled constraint matrix over the largest. Near zero, some motion is stopped only by contacts at a poor angle or a short lever: small contact compliance or misfit gives a large error motion. The least-constrained direction is that motion, shown as a screw.",
-    source: "Singular value decomposition, condition of a linear map: Golub & Van Loan, Matrix Computations, §2.4; characteristic-length scaling as in Hopkins & Culpepper, Precision Engineering 34 (2010)",
+    source:
+      "Singular value decomposition, condition of a linear map: Golub & Van Loan, Matrix Computations, §2.4; characteristic-length scaling as in Hopkins & Culpepper, Precision Engineering 34 (2010)",
     options: z.object({ threshold: z.number().positive().max(1).default(0.05) }),
   },
   check({ layout, analysis, options }) {

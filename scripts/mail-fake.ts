@@ -25,7 +25,13 @@ const server = new SMTPServer({
       const to = session.envelope.rcptTo.map((r) => r.address);
       try {
         const mail = await simpleParser(raw);
-        const entry = { receivedAt: new Date().toISOString(), to, subject: mail.subject ?? "", text: (mail.text ?? "").slice(0, 100_000), html: typeof mail.html === "string" ? mail.html.slice(0, 100_000) : "" };
+        const entry = {
+          receivedAt: new Date().toISOString(),
+          to,
+          subject: mail.subject ?? "",
+          text: (mail.text ?? "").slice(0, 100_000),
+          html: typeof mail.html === "string" ? mail.html.slice(0, 100_000) : "",
+        };
         appendFileSync(file, JSON.stringify(entry) + "\n");
         callback();
       } catch (err) {

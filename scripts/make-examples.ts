@@ -70,7 +70,14 @@ const unit2 = (dx: number, dy: number): [number, number] => {
   return [dx / l, dy / l];
 };
 
-const ballOnFlat = (materials: [string, string], R: number): HertzData => ({ radii: [[R, R], [null, null]], angleDeg: 0, materials });
+const ballOnFlat = (materials: [string, string], R: number): HertzData => ({
+  radii: [
+    [R, R],
+    [null, null],
+  ],
+  angleDeg: 0,
+  materials,
+});
 
 // the lab's steel table (invented figure for the demo, in the range of carbon steels)
 const tableSteel: Material = { id: "table-steel", expansionPerK: 11.7e-6 };
@@ -130,7 +137,17 @@ const kelvin = base("Larkspur detachable instrument plate on socket, vee and fla
   contacts: [
     ...socket("socket", "instrument-plate", socketC, 5, 90, { hertz: hz, scatter: 0.00003 }),
     ...vee("vee", "instrument-plate", veeC, unit2(socketC[0] - veeC[0], socketC[1] - veeC[1]), 5, { hertz: hz, scatter: 0.00005 }),
-    { id: "flat", body: "instrument-plate", on: "ground", feature: "flat", point: v(100, 160, -5), normal: v(0, 0, 1), sense: "unilateral", hertz: hz, scatter: 0.00012 },
+    {
+      id: "flat",
+      body: "instrument-plate",
+      on: "ground",
+      feature: "flat",
+      point: v(100, 160, -5),
+      normal: v(0, 0, 1),
+      sense: "unilateral",
+      hertz: hz,
+      scatter: 0.00012,
+    },
   ],
   loads: [{ id: "nest-spring", body: "instrument-plate", force: v(0, 0, -40), point: v(100, 53.333333, 0) }],
   points: [

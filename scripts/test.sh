@@ -7,6 +7,12 @@ export DB_PORT=3408 DB_USER=sixfold DB_PASSWORD=sixfold-test
 mkdir -p .data/results
 
 ensure_node_modules
+status=0
+echo "== lint (eslint with the import boundaries, prettier)" >&2
+if ! node_modules/.bin/eslint . || ! node_modules/.bin/prettier --check --log-level warn "**/*.{ts,tsx,mjs,mts,css}"; then
+  echo "[test] lint failed: fix the reports above (npm run lint; npm run format)" >&2
+  status=1
+fi
 missing=""
 [ -x /usr/bin/chromium ] || missing="$missing chromium"
 command -v curl >/dev/null 2>&1 || missing="$missing curl"
@@ -22,7 +28,6 @@ start_mail_fake "$SMTP_PORT" "$MAIL_CAPTURE_FILE"
 trap 'stop_mail_fake; bash scripts/db.sh down test "$DB_PORT" || true' EXIT
 node scripts/build-worker.mjs
 
-status=0
 echo "== unit and integration tests (vitest)" >&2
 DB_NAME=sixfold_it SIXFOLD_MAIL_TIMER=off node_modules/.bin/vitest run --reporter=default --reporter=json \
   --outputFile.json=.data/results/vitest.json || status=1

@@ -28,7 +28,9 @@ export default async function AppLayout({ children }: { children: React.ReactNod
             <span data-testid="whoami">
               {user.name} · <span className="text-graphite-soft">{roleLabels[user.role]}</span>
             </span>
-            <Link href="/signout" className="btn-quiet">Sign out</Link>
+            <Link href="/signout" className="btn-quiet">
+              Sign out
+            </Link>
           </div>
         </div>
       </header>

@@ -30,11 +30,15 @@ export function SignInForm({ callbackUrl }: { callbackUrl: string }) {
   return (
     <form onSubmit={onSubmit} className="space-y-4" noValidate>
       <div>
-        <label htmlFor="email" className="label">E-mail</label>
+        <label htmlFor="email" className="label">
+          E-mail
+        </label>
         <input id="email" name="email" type="email" autoComplete="username" required className="field" />
       </div>
       <div>
-        <label htmlFor="password" className="label">Password</label>
+        <label htmlFor="password" className="label">
+          Password
+        </label>
         <input id="password" name="password" type="password" autoComplete="current-password" required className="field" />
       </div>
       {error && (

@@ -30,7 +30,8 @@ export function DashboardView() {
   const th = (key: SortKey, label: string, right = true) => (
     <th className={right ? "text-right" : ""} aria-sort={sort.key === key ? (sort.desc ? "descending" : "ascending") : "none"}>
       <button type="button" className="uppercase tracking-wider" onClick={() => setSort({ key, desc: sort.key === key ? !sort.desc : true })}>
-        {label}{sort.key === key ? (sort.desc ? " ↓" : " ↑") : " ↕"}
+        {label}
+        {sort.key === key ? (sort.desc ? " ↓" : " ↑") : " ↕"}
       </button>
     </th>
   );
@@ -44,23 +45,49 @@ export function DashboardView() {
         </div>
         <select className="field w-auto py-1 text-xs" aria-label="Project" value={project} onChange={(e) => setProject(e.target.value)}>
           <option value="">all projects</option>
-          {q.data?.projects.map((p) => (<option key={p.id} value={p.id}>{p.name}</option>))}
+          {q.data?.projects.map((p) => (
+            <option key={p.id} value={p.id}>
+              {p.name}
+            </option>
+          ))}
         </select>
         <select className="field w-auto py-1 text-xs" aria-label="Checker" value={checker} onChange={(e) => setChecker(e.target.value)}>
           <option value="">all checkers</option>
-          {q.data?.checkers.map((c) => (<option key={c.id} value={c.id}>{c.name}</option>))}
+          {q.data?.checkers.map((c) => (
+            <option key={c.id} value={c.id}>
+              {c.name}
+            </option>
+          ))}
         </select>
         <select className="field w-auto py-1 text-xs" aria-label="Rule" value={rule} onChange={(e) => setRule(e.target.value)}>
           <option value="">all rules</option>
-          {q.data?.rules.map((r) => (<option key={r} value={r}>{r}</option>))}
+          {q.data?.rules.map((r) => (
+            <option key={r} value={r}>
+              {r}
+            </option>
+          ))}
         </select>
         <select className="field w-auto py-1 text-xs" aria-label="Trend period" value={days} onChange={(e) => setDays(e.target.value)}>
-          {["30", "60", "180", "365"].map((d) => (<option key={d} value={d}>last {d} days</option>))}
+          {["30", "60", "180", "365"].map((d) => (
+            <option key={d} value={d}>
+              last {d} days
+            </option>
+          ))}
         </select>
-        <a className="btn-quiet" href={`/api/dashboard?${qs}&format=csv`} download>Export CSV</a>
+        <a className="btn-quiet" href={`/api/dashboard?${qs}&format=csv`} download>
+          Export CSV
+        </a>
       </div>
-      {q.isPending && <p role="status" className="text-sm text-graphite-soft">Loading figures…</p>}
-      {q.isError && <p role="alert" className="text-sm text-severity-error">{(q.error as Error).message}</p>}
+      {q.isPending && (
+        <p role="status" className="text-sm text-graphite-soft">
+          Loading figures…
+        </p>
+      )}
+      {q.isError && (
+        <p role="alert" className="text-sm text-severity-error">
+          {(q.error as Error).message}
+        </p>
+      )}
       {q.data && (
         <>
           <div className="sheet overflow-x-auto">
@@ -80,32 +107,61 @@ export function DashboardView() {
               <tbody>
                 {rows.map((r) => (
                   <tr key={r.projectId}>
-                    <td><Link href={`/projects/${r.projectId}`}>{r.project}</Link></td>
+                    <td>
+                      <Link href={`/projects/${r.projectId}`}>{r.project}</Link>
+                    </td>
                     <td>{r.checker ?? "—"}</td>
-                    {[r.error, r.warning, r.info, r.underWeek, r.underMonth, r.older].map((v, i) => (<td key={i} className="num text-right">{v}</td>))}
+                    {[r.error, r.warning, r.info, r.underWeek, r.underMonth, r.older].map((v, i) => (
+                      <td key={i} className="num text-right">
+                        {v}
+                      </td>
+                    ))}
                   </tr>
                 ))}
-                {rows.length === 0 && (<tr><td colSpan={8} className="py-6 text-center text-graphite-soft">No open findings for this filter.</td></tr>)}
+                {rows.length === 0 && (
+                  <tr>
+                    <td colSpan={8} className="py-6 text-center text-graphite-soft">
+                      No open findings for this filter.
+                    </td>
+                  </tr>
+                )}
               </tbody>
               <tfoot>
                 <tr className="font-semibold">
                   <td>Total</td>
                   <td />
-                  {[q.data.totals.error, q.data.totals.warning, q.data.totals.info, q.data.totals.underWeek, q.data.totals.underMonth, q.data.totals.older].map((v, i) => (<td key={i} className="num text-right" data-testid={`total-${i}`}>{v}</td>))}
+                  {[q.data.totals.error, q.data.totals.warning, q.data.totals.info, q.data.totals.underWeek, q.data.totals.underMonth, q.data.totals.older].map(
+                    (v, i) => (
+                      <td key={i} className="num text-right" data-testid={`total-${i}`}>
+                        {v}
+                      </td>
+                    ),
+                  )}
                 </tr>
               </tfoot>
             </table>
           </div>
 
           <section className="sheet p-4" aria-labelledby="trend-heading">
-            <h2 id="trend-heading" className="text-base">Open findings over time</h2>
+            <h2 id="trend-heading" className="text-base">
+              Open findings over time
+            </h2>
             <p className="text-xs text-graphite-soft">Number of open or reopened findings (count) at the end of each day (UTC).</p>
-            <div className="h-64" data-testid="trend-chart" role="img" aria-label={`Open findings per day; ${q.data.trend[q.data.trend.length - 1]?.open ?? 0} today`}>
+            <div
+              className="h-64"
+              data-testid="trend-chart"
+              role="img"
+              aria-label={`Open findings per day; ${q.data.trend[q.data.trend.length - 1]?.open ?? 0} today`}
+            >
               <ResponsiveContainer width="100%" height="100%">
                 <LineChart data={q.data.trend} margin={{ top: 10, right: 20, left: 0, bottom: 10 }}>
                   <CartesianGrid stroke="#d8ccb4" strokeDasharray="2 4" />
                   <XAxis dataKey="day" tick={{ fontSize: 10 }} label={{ value: "date (UTC)", position: "insideBottomRight", offset: -4, fontSize: 10 }} />
-                  <YAxis allowDecimals={false} tick={{ fontSize: 10 }} label={{ value: "open findings (count)", angle: -90, position: "insideLeft", fontSize: 10 }} />
+                  <YAxis
+                    allowDecimals={false}
+                    tick={{ fontSize: 10 }}
+                    label={{ value: "open findings (count)", angle: -90, position: "insideLeft", fontSize: 10 }}
+                  />
                   <Tooltip />
                   <Legend />
                   <Line type="stepAfter" dataKey="open" name="open findings" stroke="#0f5b5c" strokeWidth={2} dot={false} />
@@ -119,16 +175,26 @@ export function DashboardView() {
               <div key={state} className="sheet p-4">
                 <h2 className="text-base">{state === "ready" ? "Ready for release" : "Blocked"}</h2>
                 <ul className="mt-2 space-y-2 text-sm" data-testid={`layouts-${state}`}>
-                  {q.data.layouts.filter((l) => (state === "ready" ? l.state === "ready" || l.state === "requested" : l.state === "blocked")).map((l) => (
-                    <li key={l.id}>
-                      <Link href={`/layouts/${l.id}`}>{l.name}</Link> <span className="text-xs text-graphite-soft">{l.project} · r{l.revision}{l.state === "requested" ? " · release requested" : ""}</span>
-                      {l.blocking.length > 0 && (
-                        <ul className="ml-4 list-disc text-xs">
-                          {l.blocking.map((b) => (<li key={b.threadId}><Link href={`/findings/${b.threadId}`}>{b.title}</Link></li>))}
-                        </ul>
-                      )}
-                    </li>
-                  ))}
+                  {q.data.layouts
+                    .filter((l) => (state === "ready" ? l.state === "ready" || l.state === "requested" : l.state === "blocked"))
+                    .map((l) => (
+                      <li key={l.id}>
+                        <Link href={`/layouts/${l.id}`}>{l.name}</Link>{" "}
+                        <span className="text-xs text-graphite-soft">
+                          {l.project} · r{l.revision}
+                          {l.state === "requested" ? " · release requested" : ""}
+                        </span>
+                        {l.blocking.length > 0 && (
+                          <ul className="ml-4 list-disc text-xs">
+                            {l.blocking.map((b) => (
+                              <li key={b.threadId}>
+                                <Link href={`/findings/${b.threadId}`}>{b.title}</Link>
+                              </li>
+                            ))}
+                          </ul>
+                        )}
+                      </li>
+                    ))}
                 </ul>
               </div>
             ))}

@@ -86,7 +86,10 @@ export function ThermalLayer({ report, layout, view, px, arrow }: LayerProps & {
         return (
           <g key={p.id} data-drift={p.id}>
             <line x1={a[0]} y1={a[1]} x2={z[0]} y2={z[1]} stroke={palette.thermal} strokeWidth={1.3} strokeDasharray="4 2" />
-            <path d={`M${z[0]},${z[1]} l${-6 * Math.cos(ang - 0.45)},${-6 * Math.sin(ang - 0.45)} l${6 * Math.cos(ang - 0.45) - 6 * Math.cos(ang + 0.45)},${6 * Math.sin(ang - 0.45) - 6 * Math.sin(ang + 0.45)} z`} fill={palette.thermal} />
+            <path
+              d={`M${z[0]},${z[1]} l${-6 * Math.cos(ang - 0.45)},${-6 * Math.sin(ang - 0.45)} l${6 * Math.cos(ang - 0.45) - 6 * Math.cos(ang + 0.45)},${6 * Math.sin(ang - 0.45) - 6 * Math.sin(ang + 0.45)} z`}
+              fill={palette.thermal}
+            />
           </g>
         );
       })}
@@ -136,14 +139,28 @@ export function PointLayer({ report, layout, view, px, refPx }: LayerProps & { r
           const ry = ((3 * Math.sqrt(Math.max(0, tr - disc))) / refUm) * refPx;
           // SVG y points down: the angle of the model-up frame is mirrored
           const ang = (Math.atan2(2 * cxy, cxx - cyy) / 2) * (180 / Math.PI);
-          ellipse = <ellipse cx={x} cy={y} rx={Math.max(rx, 0.6)} ry={Math.max(ry, 0.6)} transform={`rotate(${-ang} ${x} ${y})`} fill="none" stroke={palette.repeatability} strokeWidth={1.2} data-ellipse={p.id} />;
+          ellipse = (
+            <ellipse
+              cx={x}
+              cy={y}
+              rx={Math.max(rx, 0.6)}
+              ry={Math.max(ry, 0.6)}
+              transform={`rotate(${-ang} ${x} ${y})`}
+              fill="none"
+              stroke={palette.repeatability}
+              strokeWidth={1.2}
+              data-ellipse={p.id}
+            />
+          );
         }
         return (
           <g key={p.id} data-point={p.id}>
             <path d={`M${x - 5},${y} h10 M${x},${y - 5} v10`} stroke={palette.ink} strokeWidth={1} />
             <rect x={x - 2.5} y={y - 2.5} width={5} height={5} fill="none" stroke={palette.ink} strokeWidth={0.8} transform={`rotate(45 ${x} ${y})`} />
             {ellipse}
-            <text x={x + 6} y={y + 12} fontSize={8.5} fill={palette.ink} fontStyle="italic">{p.id}</text>
+            <text x={x + 6} y={y + 12} fontSize={8.5} fill={palette.ink} fontStyle="italic">
+              {p.id}
+            </text>
           </g>
         );
       })}

@@ -2,7 +2,15 @@
 /** The findings table of a revision: sortable columns, filters by severity, status and rule, and search. */
 import Link from "next/link";
 import { useMemo, useState } from "react";
-import { createColumnHelper, flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type SortingState } from "@tanstack/react-table";
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from "@tanstack/react-table";
 import { SeverityBadge, StatusBadge } from "@/components/review/badges";
 import type { Severity } from "@/lib/contracts/enums";
 
@@ -40,7 +48,11 @@ export function FindingsTable({ findings }: { findings: FindingRow[] }) {
   );
   const columns = useMemo(
     () => [
-      col.accessor("severity", { header: "Severity", cell: (c) => <SeverityBadge severity={c.getValue()} />, sortingFn: (a, b) => sevRank[a.original.severity] - sevRank[b.original.severity] }),
+      col.accessor("severity", {
+        header: "Severity",
+        cell: (c) => <SeverityBadge severity={c.getValue()} />,
+        sortingFn: (a, b) => sevRank[a.original.severity] - sevRank[b.original.severity],
+      }),
       col.accessor("rule", { header: "Rule", cell: (c) => <code className="text-xs">{c.getValue()}</code> }),
       col.accessor("title", { header: "Finding", cell: (c) => <Link href={`/findings/${c.row.original.threadId}`}>{c.getValue()}</Link> }),
       col.accessor("status", { header: "Status", cell: (c) => <StatusBadge status={c.getValue()} /> }),
@@ -49,29 +61,63 @@ export function FindingsTable({ findings }: { findings: FindingRow[] }) {
     ],
     [],
   );
-  const table = useReactTable({ data, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel(), getFilteredRowModel: getFilteredRowModel() });
+  const table = useReactTable({
+    data,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+  });
   const rules = [...new Set(findings.map((f) => f.rule))].sort();
 
   return (
     <section className="space-y-3" aria-labelledby="findings-heading">
       <div className="flex flex-wrap items-end gap-3">
-        <h2 id="findings-heading" className="mr-auto">Findings <span className="num text-graphite-soft">({data.length} of {findings.length})</span></h2>
+        <h2 id="findings-heading" className="mr-auto">
+          Findings{" "}
+          <span className="num text-graphite-soft">
+            ({data.length} of {findings.length})
+          </span>
+        </h2>
         <select className="field w-auto py-1 text-xs" aria-label="Filter by severity" value={severity} onChange={(e) => setSeverity(e.target.value)}>
           <option value="">all severities</option>
-          {["error", "warning", "info"].map((s) => (<option key={s} value={s}>{s}</option>))}
+          {["error", "warning", "info"].map((s) => (
+            <option key={s} value={s}>
+              {s}
+            </option>
+          ))}
         </select>
         <select className="field w-auto py-1 text-xs" aria-label="Filter by status" value={status} onChange={(e) => setStatus(e.target.value)}>
           <option value="">all states</option>
-          {["open", "reopened", "waived", "resolved"].map((s) => (<option key={s} value={s}>{s}</option>))}
+          {["open", "reopened", "waived", "resolved"].map((s) => (
+            <option key={s} value={s}>
+              {s}
+            </option>
+          ))}
         </select>
         <select className="field w-auto py-1 text-xs" aria-label="Filter by rule" value={rule} onChange={(e) => setRule(e.target.value)}>
           <option value="">all rules</option>
-          {rules.map((r) => (<option key={r} value={r}>{r}</option>))}
+          {rules.map((r) => (
+            <option key={r} value={r}>
+              {r}
+            </option>
+          ))}
         </select>
-        <input className="field w-48 py-1 text-xs" type="search" placeholder="Search findings, contacts…" aria-label="Search findings" value={search} onChange={(e) => setSearch(e.target.value)} />
+        <input
+          className="field w-48 py-1 text-xs"
+          type="search"
+          placeholder="Search findings, contacts…"
+          aria-label="Search findings"
+          value={search}
+          onChange={(e) => setSearch(e.target.value)}
+        />
       </div>
       {findings.length === 0 ? (
-        <div className="sheet px-6 py-8 text-center text-sm" data-testid="no-findings">No findings: every rule passed on this revision.</div>
+        <div className="sheet px-6 py-8 text-center text-sm" data-testid="no-findings">
+          No findings: every rule passed on this revision.
+        </div>
       ) : (
         <div className="sheet overflow-x-auto">
           <table className="tbl" data-testid="findings-table">
@@ -92,7 +138,9 @@ export function FindingsTable({ findings }: { findings: FindingRow[] }) {
             <tbody>
               {table.getRowModel().rows.map((r) => (
                 <tr key={r.id} data-rule={r.original.rule}>
-                  {r.getVisibleCells().map((c) => (<td key={c.id}>{flexRender(c.column.columnDef.cell, c.getContext())}</td>))}
+                  {r.getVisibleCells().map((c) => (
+                    <td key={c.id}>{flexRender(c.column.columnDef.cell, c.getContext())}</td>
+                  ))}
                 </tr>
               ))}
             </tbody>

@@ -27,7 +27,11 @@ export function LoadCaseTable({ report }: { report: Report }) {
         <thead>
           <tr>
             <th>contact</th>
-            {cases.map((c) => (<th key={c.id} className="text-right">{c.id}</th>))}
+            {cases.map((c) => (
+              <th key={c.id} className="text-right">
+                {c.id}
+              </th>
+            ))}
           </tr>
         </thead>
         <tbody>

@@ -25,7 +25,9 @@ export function FlexurePanel({ layout }: { layout: Layout }) {
   const rows = expandFlexures(layout).contacts.filter((c) => c.flexure);
   return (
     <section className="sheet overflow-x-auto p-4" aria-labelledby="flexures-heading" data-testid="flexure-panel">
-      <h2 id="flexures-heading" className="mb-2 text-base">Flexures ({flexures.length})</h2>
+      <h2 id="flexures-heading" className="mb-2 text-base">
+        Flexures ({flexures.length})
+      </h2>
       <SortableTable
         rows={flexures}
         rowKey={(f) => f.id}
@@ -38,7 +40,12 @@ export function FlexurePanel({ layout }: { layout: Layout }) {
             key: "section",
             label: `section (${L})`,
             sort: (f) => (f.kind === "wire" ? (f.diameter ?? 0) : f.width),
-            render: (f) => (f.kind === "wire" ? (f.diameter !== undefined ? `⌀ ${num(f.diameter)}` : "—") : `${num(f.width)} × ${f.thickness !== undefined ? num(f.thickness) : "—"}`),
+            render: (f) =>
+              f.kind === "wire"
+                ? f.diameter !== undefined
+                  ? `⌀ ${num(f.diameter)}`
+                  : "—"
+                : `${num(f.width)} × ${f.thickness !== undefined ? num(f.thickness) : "—"}`,
           },
           { key: "material", label: "material", sort: (f) => f.material ?? "", render: (f) => f.material ?? "—" },
           {
@@ -48,13 +55,16 @@ export function FlexurePanel({ layout }: { layout: Layout }) {
             render: (f) => {
               const mine = rows.filter((r) => r.flexure === f.id);
               if (mine.some((r) => r.stiffness === undefined)) return "— (needs material modulus and section)";
-              return mine.map((r) => `${r.id === f.id ? "axial" : r.id.endsWith(".s") ? "in plane" : `axial ${r.id.slice(-1)}`} ${num(r.stiffness!)}`).join(" · ");
+              return mine
+                .map((r) => `${r.id === f.id ? "axial" : r.id.endsWith(".s") ? "in plane" : `axial ${r.id.slice(-1)}`} ${num(r.stiffness!)}`)
+                .join(" · ");
             },
           },
         ]}
       />
       <p className="mt-2 text-xs text-graphite-soft">
-        Wire k = EA/ℓ; blade axial rows E·w·t/(2ℓ) each, in-plane row E·t·w³/ℓ³ (Euler–Bernoulli, good for w ≪ ℓ; a wide, short blade is softer in its plane through shear).
+        Wire k = EA/ℓ; blade axial rows E·w·t/(2ℓ) each, in-plane row E·t·w³/ℓ³ (Euler–Bernoulli, good for w ≪ ℓ; a wide, short blade is softer in its plane
+        through shear).
       </p>
     </section>
   );
@@ -70,20 +80,44 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
   const toUm = metresPer(layout.units.length) * 1e6;
   const drifts = Object.entries(t.points).map(([id, p]) => {
     const allowance = layout.points.find((x) => x.id === id)?.allowance;
-    return { id, d: p.driftUmPerK, perK: mag(p.driftUmPerK), over: mag(p.driftUmPerK) * swing, allowance, exceeds: allowance !== undefined && mag(p.driftUmPerK) * swing > allowance * toUm };
+    return {
+      id,
+      d: p.driftUmPerK,
+      perK: mag(p.driftUmPerK),
+      over: mag(p.driftUmPerK) * swing,
+      allowance,
+      exceeds: allowance !== undefined && mag(p.driftUmPerK) * swing > allowance * toUm,
+    };
   });
-  const forces = t.forcesPerK ? Object.entries(t.forcesPerK).filter(([, v]) => v !== 0).map(([id, v]) => ({ id, v })) : [];
+  const forces = t.forcesPerK
+    ? Object.entries(t.forcesPerK)
+        .filter(([, v]) => v !== 0)
+        .map(([id, v]) => ({ id, v }))
+    : [];
   return (
     <section className="sheet space-y-3 overflow-x-auto p-4" aria-labelledby="thermal-heading" data-testid="thermal-panel">
-      <h2 id="thermal-heading" className="text-base">Temperature</h2>
+      <h2 id="thermal-heading" className="text-base">
+        Temperature
+      </h2>
       <p className="text-xs text-graphite-soft">
-        Uniform change of temperature, every body and the base growing about the centroid of the contacts; results per kelvin and over {t.swingK === null ? "1 K (no swing given)" : `the swing of ${num(swing)} K`}.
+        Uniform change of temperature, every body and the base growing about the centroid of the contacts; results per kelvin and over{" "}
+        {t.swingK === null ? "1 K (no swing given)" : `the swing of ${num(swing)} K`}.
         {t.undetermined ? " The kept seats leave a free motion: drift along it is not determined (smallest motion shown)." : ""}
       </p>
       <table className="tbl text-xs">
-        <thead><tr><th>body</th><th>thermal centre ({L})</th></tr></thead>
+        <thead>
+          <tr>
+            <th>body</th>
+            <th>thermal centre ({L})</th>
+          </tr>
+        </thead>
         <tbody>
-          {Object.entries(t.bodies).map(([id, b]) => (<tr key={id}><td>{id}</td><td className="num">{b.centre ? vec(b.centre) : "none — same expansion as the base"}</td></tr>))}
+          {Object.entries(t.bodies).map(([id, b]) => (
+            <tr key={id}>
+              <td>{id}</td>
+              <td className="num">{b.centre ? vec(b.centre) : "none — same expansion as the base"}</td>
+            </tr>
+          ))}
         </tbody>
       </table>
       {drifts.length > 0 && (
@@ -95,13 +129,32 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
             { key: "id", label: "point", sort: (r) => r.id, render: (r) => r.id },
             { key: "d", label: "drift per K (µm)", sort: (r) => r.perK, render: (r) => vec(r.d as [number, number, number]) },
             { key: "perK", label: "magnitude (µm/K)", numeric: true, sort: (r) => r.perK, render: (r) => num(r.perK) },
-            { key: "over", label: `over ${num(swing)} K (µm)`, numeric: true, sort: (r) => r.over, render: (r) => <span className={r.exceeds ? "font-semibold text-severity-warning" : undefined}>{num(r.over)}{r.exceeds ? " over" : ""}</span> },
-            { key: "allow", label: `allowance (${L})`, numeric: true, sort: (r) => r.allowance ?? Infinity, render: (r) => (r.allowance === undefined ? "—" : num(r.allowance)) },
+            {
+              key: "over",
+              label: `over ${num(swing)} K (µm)`,
+              numeric: true,
+              sort: (r) => r.over,
+              render: (r) => (
+                <span className={r.exceeds ? "font-semibold text-severity-warning" : undefined}>
+                  {num(r.over)}
+                  {r.exceeds ? " over" : ""}
+                </span>
+              ),
+            },
+            {
+              key: "allow",
+              label: `allowance (${L})`,
+              numeric: true,
+              sort: (r) => r.allowance ?? Infinity,
+              render: (r) => (r.allowance === undefined ? "—" : num(r.allowance)),
+            },
           ]}
         />
       )}
       {t.forcesPerK === null ? (
-        <p className="text-xs">The support is over-constrained in service, but no stiffness magnitude is known (equal stiffness assumed): thermal forces are not computed.</p>
+        <p className="text-xs">
+          The support is over-constrained in service, but no stiffness magnitude is known (equal stiffness assumed): thermal forces are not computed.
+        </p>
       ) : forces.length ? (
         <SortableTable
           testId="thermal-force-table"
@@ -130,7 +183,9 @@ export function RepeatabilityPanel({ layout, report }: { layout: Layout; report:
   const L = lengthLabel(layout);
   const toUm = metresPer(layout.units.length) * 1e6;
   const p = rep.points[pointId] ?? rep.points[ids[0]];
-  const shares = Object.entries(p.contributions).map(([id, share]) => ({ id, pct: share * 100 })).sort((a, b) => b.pct - a.pct);
+  const shares = Object.entries(p.contributions)
+    .map(([id, share]) => ({ id, pct: share * 100 }))
+    .sort((a, b) => b.pct - a.pct);
   const summary = ids.map((id) => {
     const q = rep.points[id];
     const allowance = layout.points.find((x) => x.id === id)?.allowance;
@@ -138,9 +193,12 @@ export function RepeatabilityPanel({ layout, report }: { layout: Layout; report:
   });
   return (
     <section className="sheet space-y-3 overflow-x-auto p-4" aria-labelledby="budget-heading" data-testid="repeatability-panel">
-      <h2 id="budget-heading" className="text-base">Repeatability error budget</h2>
+      <h2 id="budget-heading" className="text-base">
+        Repeatability error budget
+      </h2>
       <p className="text-xs text-graphite-soft">
-        From each seat&apos;s scatter along its normal (1σ) to the scatter of each functional point.{rep.undetermined ? " A free motion remains: scatter along it is not determined." : ""}
+        From each seat&apos;s scatter along its normal (1σ) to the scatter of each functional point.
+        {rep.undetermined ? " A free motion remains: scatter along it is not determined." : ""}
       </p>
       <SortableTable
         testId="repeatability-table"
@@ -151,17 +209,43 @@ export function RepeatabilityPanel({ layout, report }: { layout: Layout; report:
           { key: "sx", label: "σx (µm)", numeric: true, sort: (r) => r.q.sigmaUm[0], render: (r) => num(r.q.sigmaUm[0]) },
           { key: "sy", label: "σy (µm)", numeric: true, sort: (r) => r.q.sigmaUm[1], render: (r) => num(r.q.sigmaUm[1]) },
           { key: "sz", label: "σz (µm)", numeric: true, sort: (r) => r.q.sigmaUm[2], render: (r) => num(r.q.sigmaUm[2]) },
-          { key: "three", label: "3σ largest semi-axis (µm)", numeric: true, sort: (r) => r.three, render: (r) => <span className={r.exceeds ? "font-semibold text-severity-warning" : undefined}>{num(r.three)}{r.exceeds ? " over" : ""}</span> },
-          { key: "allow", label: `allowance (${L})`, numeric: true, sort: (r) => r.allowance ?? Infinity, render: (r) => (r.allowance === undefined ? "—" : num(r.allowance)) },
+          {
+            key: "three",
+            label: "3σ largest semi-axis (µm)",
+            numeric: true,
+            sort: (r) => r.three,
+            render: (r) => (
+              <span className={r.exceeds ? "font-semibold text-severity-warning" : undefined}>
+                {num(r.three)}
+                {r.exceeds ? " over" : ""}
+              </span>
+            ),
+          },
+          {
+            key: "allow",
+            label: `allowance (${L})`,
+            numeric: true,
+            sort: (r) => r.allowance ?? Infinity,
+            render: (r) => (r.allowance === undefined ? "—" : num(r.allowance)),
+          },
         ]}
       />
       <div className="flex flex-wrap items-center gap-2 text-xs">
         <label htmlFor="budget-point">Contributions to the variance at</label>
         <select id="budget-point" className="field w-auto py-1 text-xs" value={pointId} onChange={(e) => setPointId(e.target.value)}>
-          {ids.map((id) => (<option key={id} value={id}>{id}</option>))}
+          {ids.map((id) => (
+            <option key={id} value={id}>
+              {id}
+            </option>
+          ))}
         </select>
       </div>
-      <div className="h-56 w-full" data-testid="budget-chart" role="img" aria-label={`Share of the variance at ${pointId} by contact: ${shares.map((s) => `${s.id} ${s.pct.toFixed(1)} %`).join(", ")}`}>
+      <div
+        className="h-56 w-full"
+        data-testid="budget-chart"
+        role="img"
+        aria-label={`Share of the variance at ${pointId} by contact: ${shares.map((s) => `${s.id} ${s.pct.toFixed(1)} %`).join(", ")}`}
+      >
         <ResponsiveContainer width="100%" height="100%">
           <BarChart data={shares} layout="vertical" margin={{ left: 24, right: 16 }}>
             <CartesianGrid strokeDasharray="2 3" horizontal={false} />

@@ -3,7 +3,13 @@
 import { useState } from "react";
 import { useDropzone } from "react-dropzone";
 
-type Phase = { kind: "idle" } | { kind: "uploading"; percent: number; name: string } | { kind: "analysing"; name: string } | { kind: "done"; number: number; warnings: string[] } | { kind: "refused"; name: string; errors: { location: string; message: string }[]; message: string } | { kind: "failed"; message: string };
+type Phase =
+  | { kind: "idle" }
+  | { kind: "uploading"; percent: number; name: string }
+  | { kind: "analysing"; name: string }
+  | { kind: "done"; number: number; warnings: string[] }
+  | { kind: "refused"; name: string; errors: { location: string; message: string }[]; message: string }
+  | { kind: "failed"; message: string };
 
 export function UploadPanel({ layoutId, onUploaded }: { layoutId: number; onUploaded: (revisionId: number) => void }) {
   const [phase, setPhase] = useState<Phase>({ kind: "idle" });
@@ -46,14 +52,27 @@ export function UploadPanel({ layoutId, onUploaded }: { layoutId: number; onUplo
     multiple: false,
     accept: { "application/json": [".json"], "application/xml": [".xml"], "text/xml": [".xml"], "text/csv": [".csv"] },
     onDropAccepted: (files) => send(files[0]),
-    onDropRejected: (rej) => setPhase({ kind: "refused", name: rej[0]?.file.name ?? "file", errors: [{ location: "file", message: "only .json, .xml and .csv layout files are accepted" }], message: "That file type is not a layout." }),
+    onDropRejected: (rej) =>
+      setPhase({
+        kind: "refused",
+        name: rej[0]?.file.name ?? "file",
+        errors: [{ location: "file", message: "only .json, .xml and .csv layout files are accepted" }],
+        message: "That file type is not a layout.",
+      }),
   });
   const busy = phase.kind === "uploading" || phase.kind === "analysing";
 
   return (
     <section className="sheet space-y-3 p-4" aria-labelledby="upload-heading">
-      <h2 id="upload-heading" className="text-base">Upload a revision</h2>
-      <div {...getRootProps({ className: `cursor-pointer rounded-sm border border-dashed px-4 py-6 text-center text-sm ${isDragActive ? "border-teal bg-teal-light" : "border-graphite/40"}` })} data-testid="dropzone">
+      <h2 id="upload-heading" className="text-base">
+        Upload a revision
+      </h2>
+      <div
+        {...getRootProps({
+          className: `cursor-pointer rounded-sm border border-dashed px-4 py-6 text-center text-sm ${isDragActive ? "border-teal bg-teal-light" : "border-graphite/40"}`,
+        })}
+        data-testid="dropzone"
+      >
         <input {...getInputProps()} aria-label="Layout file" disabled={busy} />
         {isDragActive ? "Drop the file here" : "Drop a layout file (JSON, XML or CSV) here, or click to choose one"}
       </div>
@@ -62,20 +81,30 @@ export function UploadPanel({ layoutId, onUploaded }: { layoutId: number; onUplo
         <label className="flex items-center gap-1">
           <span className="text-xs">length</span>
           <select className="field w-auto py-1" value={length} onChange={(e) => setLength(e.target.value)} aria-label="CSV length unit">
-            {["mm", "m", "um", "in"].map((u) => (<option key={u} value={u}>{u === "um" ? "µm" : u}</option>))}
+            {["mm", "m", "um", "in"].map((u) => (
+              <option key={u} value={u}>
+                {u === "um" ? "µm" : u}
+              </option>
+            ))}
           </select>
         </label>
         <label className="flex items-center gap-1">
           <span className="text-xs">force</span>
           <select className="field w-auto py-1" value={force} onChange={(e) => setForce(e.target.value)} aria-label="CSV force unit">
-            {["N", "kN", "lbf"].map((u) => (<option key={u} value={u}>{u}</option>))}
+            {["N", "kN", "lbf"].map((u) => (
+              <option key={u} value={u}>
+                {u}
+              </option>
+            ))}
           </select>
         </label>
       </div>
       <div aria-live="polite" data-testid="upload-status">
         {phase.kind === "uploading" && (
           <div>
-            <div className="text-sm">Uploading {phase.name}… <span className="num">{phase.percent} %</span></div>
+            <div className="text-sm">
+              Uploading {phase.name}… <span className="num">{phase.percent} %</span>
+            </div>
             <progress className="w-full" max={100} value={phase.percent} />
           </div>
         )}
@@ -89,19 +118,32 @@ export function UploadPanel({ layoutId, onUploaded }: { layoutId: number; onUplo
           <div className="text-sm">
             <p className="text-teal-dark">Revision {phase.number} stored and analysed.</p>
             {phase.warnings.length > 0 && (
-              <ul className="mt-1 rounded-sm border border-severity-warning/40 bg-severity-warning-bg p-2 text-xs text-severity-warning" data-testid="upload-warnings">
-                {phase.warnings.map((w) => (<li key={w}>▲ {w}</li>))}
+              <ul
+                className="mt-1 rounded-sm border border-severity-warning/40 bg-severity-warning-bg p-2 text-xs text-severity-warning"
+                data-testid="upload-warnings"
+              >
+                {phase.warnings.map((w) => (
+                  <li key={w}>▲ {w}</li>
+                ))}
               </ul>
             )}
           </div>
         )}
-        {phase.kind === "failed" && <p role="alert" className="text-sm text-severity-error">{phase.message}</p>}
+        {phase.kind === "failed" && (
+          <p role="alert" className="text-sm text-severity-error">
+            {phase.message}
+          </p>
+        )}
         {phase.kind === "refused" && (
           <div role="alert" className="rounded-sm border border-severity-error/40 bg-severity-error-bg p-3 text-sm text-severity-error">
-            <p className="font-medium">{phase.name}: {phase.message}</p>
+            <p className="font-medium">
+              {phase.name}: {phase.message}
+            </p>
             <ul className="mt-2 space-y-1" data-testid="upload-errors">
               {phase.errors.map((e, i) => (
-                <li key={i}><code className="num">{e.location}</code> — {e.message}</li>
+                <li key={i}>
+                  <code className="num">{e.location}</code> — {e.message}
+                </li>
               ))}
             </ul>
           </div>

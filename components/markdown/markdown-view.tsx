@@ -23,7 +23,10 @@ const schema = {
 export function MarkdownView({ source, className = "", mentions = false }: { source: string; className?: string; mentions?: boolean }) {
   return (
     <div className={`markdown ${className}`}>
-      <ReactMarkdown remarkPlugins={[remarkGfm, remarkMath]} rehypePlugins={mentions ? [[rehypeSanitize, schema], rehypeMentions, rehypeKatex] : [[rehypeSanitize, schema], rehypeKatex]}>
+      <ReactMarkdown
+        remarkPlugins={[remarkGfm, remarkMath]}
+        rehypePlugins={mentions ? [[rehypeSanitize, schema], rehypeMentions, rehypeKatex] : [[rehypeSanitize, schema], rehypeKatex]}
+      >
         {source}
       </ReactMarkdown>
     </div>

@@ -24,9 +24,12 @@ export function MaterialsLibrary({ projectId, canEdit }: { projectId: number; ca
   const rows = q.data?.materials ?? [];
   return (
     <section className="sheet space-y-3 overflow-x-auto p-4" aria-labelledby="materials-heading" data-testid="materials-library">
-      <h2 id="materials-heading" className="text-base">Materials library</h2>
+      <h2 id="materials-heading" className="text-base">
+        Materials library
+      </h2>
       <p className="text-xs text-graphite-soft">
-        Values this project uses for a material id before the built-in table (a layout&apos;s own <code>materials[]</code> still come first). Each entry names its source; uploads keep a copy of the values they were analysed with.
+        Values this project uses for a material id before the built-in table (a layout&apos;s own <code>materials[]</code> still come first). Each entry names
+        its source; uploads keep a copy of the values they were analysed with.
       </p>
       {rows.length === 0 ? (
         <p className="text-sm">No entries: layouts use the built-in table (typical values, to be confirmed with your supplier).</p>
@@ -34,23 +37,43 @@ export function MaterialsLibrary({ projectId, canEdit }: { projectId: number; ca
         <table className="tbl text-xs">
           <thead>
             <tr>
-              <th>id</th><th className="text-right">E (GPa)</th><th className="text-right">ν</th><th className="text-right">allowable p₀ (MPa)</th><th className="text-right">α (µm/(m·K))</th><th>source</th><th>set by</th>{canEdit && <th>Action</th>}
+              <th>id</th>
+              <th className="text-right">E (GPa)</th>
+              <th className="text-right">ν</th>
+              <th className="text-right">allowable p₀ (MPa)</th>
+              <th className="text-right">α (µm/(m·K))</th>
+              <th>source</th>
+              <th>set by</th>
+              {canEdit && <th>Action</th>}
             </tr>
           </thead>
           <tbody>
             {rows.map((m) => (
               <tr key={m.id}>
-                <td><code>{m.id}</code></td>
+                <td>
+                  <code>{m.id}</code>
+                </td>
                 <td className="num text-right">{cell(m.youngsModulusGPa)}</td>
                 <td className="num text-right">{cell(m.poissonRatio)}</td>
                 <td className="num text-right">{cell(m.allowableContactPressureMPa)}</td>
                 <td className="num text-right">{cell(m.expansionPerK, 1e6)}</td>
                 <td>{m.source}</td>
-                <td>{m.setBy ?? "—"} · {m.updatedAt.slice(0, 10)}</td>
+                <td>
+                  {m.setBy ?? "—"} · {m.updatedAt.slice(0, 10)}
+                </td>
                 {canEdit && (
                   <td>
-                    <ConfirmButton label={`Remove ${m.id}`} className="btn-quiet py-0.5 text-xs" title={`Remove ${m.id} from the library?`} confirmLabel="Remove" onConfirm={() => remove.mutate(m.id)}>
-                      <p>New uploads will no longer find {m.id} here (the built-in value, if any, applies). Stored revisions keep the values they were analysed with.</p>
+                    <ConfirmButton
+                      label={`Remove ${m.id}`}
+                      className="btn-quiet py-0.5 text-xs"
+                      title={`Remove ${m.id} from the library?`}
+                      confirmLabel="Remove"
+                      onConfirm={() => remove.mutate(m.id)}
+                    >
+                      <p>
+                        New uploads will no longer find {m.id} here (the built-in value, if any, applies). Stored revisions keep the values they were analysed
+                        with.
+                      </p>
                     </ConfirmButton>
                   </td>
                 )}
@@ -88,21 +111,45 @@ export function MaterialsLibrary({ projectId, canEdit }: { projectId: number; ca
             ["alpha", "α (µm/(m·K))", "number", "expansionPerK"],
           ].map(([name, label, type, field]) => (
             <div key={name}>
-              <label htmlFor={`mat-${name}`} className="label normal-case">{label}</label>
+              <label htmlFor={`mat-${name}`} className="label normal-case">
+                {label}
+              </label>
               <input id={`mat-${name}`} name={name} type={type} step="any" className="field" required={name === "id"} />
-              {add.errors[field]?.map((m) => (<p key={m} className="text-xs text-severity-error">{m}</p>))}
+              {add.errors[field]?.map((m) => (
+                <p key={m} className="text-xs text-severity-error">
+                  {m}
+                </p>
+              ))}
             </div>
           ))}
           <div className="sm:col-span-3 lg:col-span-5">
-            <label htmlFor="mat-source" className="label">Source (datasheet, standard, test report)</label>
+            <label htmlFor="mat-source" className="label">
+              Source (datasheet, standard, test report)
+            </label>
             <input id="mat-source" name="source" className="field" required />
-            {add.errors.source?.map((m) => (<p key={m} className="text-xs text-severity-error">{m}</p>))}
+            {add.errors.source?.map((m) => (
+              <p key={m} className="text-xs text-severity-error">
+                {m}
+              </p>
+            ))}
           </div>
-          <div className="flex items-end"><button type="submit" className="btn" disabled={add.mutation.isPending}>Save material</button></div>
+          <div className="flex items-end">
+            <button type="submit" className="btn" disabled={add.mutation.isPending}>
+              Save material
+            </button>
+          </div>
         </form>
       )}
-      {add.message && <p role="alert" className="text-sm text-severity-error">{add.message}</p>}
-      {remove.isError && <p role="alert" className="text-sm text-severity-error">{(remove.error as Error).message}</p>}
+      {add.message && (
+        <p role="alert" className="text-sm text-severity-error">
+          {add.message}
+        </p>
+      )}
+      {remove.isError && (
+        <p role="alert" className="text-sm text-severity-error">
+          {(remove.error as Error).message}
+        </p>
+      )}
     </section>
   );
 }

@@ -19,7 +19,17 @@ interface ProjectData {
 }
 
 /** The manager's control to assign or change the project's checker, and the record of earlier assignments. */
-function CheckerControl({ projectId, current, checkers, history }: { projectId: number; current: { id: number; name: string } | null; checkers: { id: number; name: string }[]; history: ProjectData["history"] }) {
+function CheckerControl({
+  projectId,
+  current,
+  checkers,
+  history,
+}: {
+  projectId: number;
+  current: { id: number; name: string } | null;
+  checkers: { id: number; name: string }[];
+  history: ProjectData["history"];
+}) {
   const qc = useQueryClient();
   const [choice, setChoice] = useState(String(current?.id ?? ""));
   const save = useMutation({
@@ -28,22 +38,40 @@ function CheckerControl({ projectId, current, checkers, history }: { projectId: 
   });
   return (
     <section className="sheet space-y-2 p-4 text-sm" aria-labelledby="checker-heading" data-testid="checker-control">
-      <h2 id="checker-heading" className="text-base">Checker</h2>
+      <h2 id="checker-heading" className="text-base">
+        Checker
+      </h2>
       <div className="flex flex-wrap items-end gap-2">
         <div>
-          <label htmlFor="checker-select" className="label">Checker who approves releases</label>
+          <label htmlFor="checker-select" className="label">
+            Checker who approves releases
+          </label>
           <select id="checker-select" className="field w-auto" value={choice} onChange={(e) => setChoice(e.target.value)}>
             <option value="">not assigned (any checker)</option>
-            {checkers.map((c) => (<option key={c.id} value={c.id}>{c.name}</option>))}
+            {checkers.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name}
+              </option>
+            ))}
           </select>
         </div>
-        <button type="button" className="btn" disabled={save.isPending || choice === String(current?.id ?? "")} onClick={() => save.mutate()}>Save checker</button>
+        <button type="button" className="btn" disabled={save.isPending || choice === String(current?.id ?? "")} onClick={() => save.mutate()}>
+          Save checker
+        </button>
       </div>
-      {save.isError && <p role="alert" className="text-severity-error">{(save.error as Error).message}</p>}
+      {save.isError && (
+        <p role="alert" className="text-severity-error">
+          {(save.error as Error).message}
+        </p>
+      )}
       {history.length > 0 && (
         <ol className="text-xs text-graphite-soft" data-testid="checker-history">
           {history.map((h) => (
-            <li key={h.id}>{h.createdAt.slice(0, 16).replace("T", " ")} UTC · {h.actor ?? "Sixfold"} changed the checker from {h.detail.from ?? "not assigned"} to {h.detail.to ?? "not assigned"}{h.detail.why ? ` (${h.detail.why})` : ""}</li>
+            <li key={h.id}>
+              {h.createdAt.slice(0, 16).replace("T", " ")} UTC · {h.actor ?? "Sixfold"} changed the checker from {h.detail.from ?? "not assigned"} to{" "}
+              {h.detail.to ?? "not assigned"}
+              {h.detail.why ? ` (${h.detail.why})` : ""}
+            </li>
           ))}
         </ol>
       )}
@@ -67,8 +95,18 @@ export function ProjectView({
   checkers?: { id: number; name: string }[];
 }) {
   const q = useQuery({ queryKey: ["project", projectId], queryFn: () => fetchJson<ProjectData>(`/api/projects/${projectId}`) });
-  if (q.isPending) return <p role="status" className="text-sm text-graphite-soft">Loading project…</p>;
-  if (q.isError) return <p role="alert" className="text-sm text-severity-error">{(q.error as Error).message}</p>;
+  if (q.isPending)
+    return (
+      <p role="status" className="text-sm text-graphite-soft">
+        Loading project…
+      </p>
+    );
+  if (q.isError)
+    return (
+      <p role="alert" className="text-sm text-severity-error">
+        {(q.error as Error).message}
+      </p>
+    );
   const { project, layouts, history } = q.data;
   return (
     <div className="space-y-6">
@@ -85,7 +123,9 @@ export function ProjectView({
       {layouts.length === 0 ? (
         <div className="sheet px-6 py-10 text-center" data-testid="layouts-empty">
           <p className="font-medium">No layouts in this project yet.</p>
-          <p className="mt-1 text-sm text-graphite-soft">{canCreate ? "Add one above, then upload its first revision." : "A designer adds layouts and uploads their revisions."}</p>
+          <p className="mt-1 text-sm text-graphite-soft">
+            {canCreate ? "Add one above, then upload its first revision." : "A designer adds layouts and uploads their revisions."}
+          </p>
         </div>
       ) : (
         <div className="sheet overflow-x-auto">
@@ -105,14 +145,20 @@ export function ProjectView({
               {layouts.map((l) => (
                 <tr key={l.id}>
                   <td>
-                    <Link href={`/layouts/${l.id}`} className="font-medium">{l.name}</Link>
+                    <Link href={`/layouts/${l.id}`} className="font-medium">
+                      {l.name}
+                    </Link>
                     <div className="text-xs text-graphite-soft">{l.description}</div>
                   </td>
-                  <td><LayoutStateBadge state={l} /></td>
+                  <td>
+                    <LayoutStateBadge state={l} />
+                  </td>
                   <td className="num text-right">{l.latestRevision ? `r${l.latestRevision.number}` : "—"}</td>
                   <td className="num text-right">{l.latestRevision?.freedoms ?? "—"}</td>
                   <td className="num text-right">{l.latestRevision?.redundancies ?? "—"}</td>
-                  <td className="num text-right">{l.openErrors} / {l.openWarnings} / {l.openInfos}</td>
+                  <td className="num text-right">
+                    {l.openErrors} / {l.openWarnings} / {l.openInfos}
+                  </td>
                   <td className="num text-right">{l.waived}</td>
                 </tr>
               ))}
@@ -141,18 +187,32 @@ function NewLayoutForm({ projectId }: { projectId: number }) {
       }}
     >
       <div>
-        <label htmlFor="layout-name" className="label">Layout name</label>
+        <label htmlFor="layout-name" className="label">
+          Layout name
+        </label>
         <input id="layout-name" name="name" className="field" aria-invalid={!!errors.name} />
-        {errors.name && <p className="field-error" id="layout-name-error">{errors.name.join(" ")}</p>}
+        {errors.name && (
+          <p className="field-error" id="layout-name-error">
+            {errors.name.join(" ")}
+          </p>
+        )}
       </div>
       <div>
-        <label htmlFor="layout-description" className="label">Description</label>
+        <label htmlFor="layout-description" className="label">
+          Description
+        </label>
         <input id="layout-description" name="description" className="field" />
       </div>
       <div className="md:pt-5">
-        <button className="btn" type="submit" disabled={m.isPending}>{m.isPending ? "Adding…" : "Add layout"}</button>
+        <button className="btn" type="submit" disabled={m.isPending}>
+          {m.isPending ? "Adding…" : "Add layout"}
+        </button>
       </div>
-      {message && !Object.keys(errors).length && <p role="alert" className="field-error md:col-span-3">{message}</p>}
+      {message && !Object.keys(errors).length && (
+        <p role="alert" className="field-error md:col-span-3">
+          {message}
+        </p>
+      )}
     </form>
   );
 }

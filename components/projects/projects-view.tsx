@@ -25,8 +25,14 @@ export function ProjectsView({ canCreate, checkers }: { canCreate: boolean; chec
       {canCreate && <CreateProjectForm checkers={checkers} />}
 
       <section aria-labelledby="project-list" className="space-y-3">
-        <h2 id="project-list" className="sr-only">Project list</h2>
-        {query.isPending && <p className="text-sm text-graphite-soft" role="status">Loading projects…</p>}
+        <h2 id="project-list" className="sr-only">
+          Project list
+        </h2>
+        {query.isPending && (
+          <p className="text-sm text-graphite-soft" role="status">
+            Loading projects…
+          </p>
+        )}
         {query.isError && (
           <p role="alert" className="text-sm text-severity-error">
             Projects could not be loaded: {(query.error as Error).message}
@@ -46,7 +52,9 @@ export function ProjectsView({ canCreate, checkers }: { canCreate: boolean; chec
           <ul className="grid gap-3 md:grid-cols-2" data-testid="project-list">
             {query.data.projects.map((p) => (
               <li key={p.id} className="sheet p-4">
-                <a href={`/projects/${p.id}`} className="font-medium">{p.name}</a>
+                <a href={`/projects/${p.id}`} className="font-medium">
+                  {p.name}
+                </a>
                 {p.description && <p className="mt-1 text-sm text-graphite-soft">{p.description}</p>}
                 <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-3 text-xs text-graphite-soft">
                   <dt>Checker</dt>
@@ -64,7 +72,11 @@ export function ProjectsView({ canCreate, checkers }: { canCreate: boolean; chec
 }
 
 function CreateProjectForm({ checkers }: { checkers: { id: number; name: string }[] }) {
-  const { mutation, errors: fieldErrors, message } = useFormPost<{ name: string; description: string; checkerId: number | null }>("/api/projects", ["projects"]);
+  const {
+    mutation,
+    errors: fieldErrors,
+    message,
+  } = useFormPost<{ name: string; description: string; checkerId: number | null }>("/api/projects", ["projects"]);
 
   function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -80,21 +92,33 @@ function CreateProjectForm({ checkers }: { checkers: { id: number; name: string 
   return (
     <form onSubmit={onSubmit} className="sheet grid gap-4 p-4 md:grid-cols-[2fr_3fr_1.5fr_auto] md:items-start" aria-label="New project" noValidate>
       <div>
-        <label htmlFor="project-name" className="label">Name</label>
+        <label htmlFor="project-name" className="label">
+          Name
+        </label>
         <input id="project-name" name="name" className="field" aria-invalid={!!fieldErrors.name} aria-describedby="project-name-error" />
-        {fieldErrors.name && <p id="project-name-error" className="field-error">{fieldErrors.name.join(" ")}</p>}
+        {fieldErrors.name && (
+          <p id="project-name-error" className="field-error">
+            {fieldErrors.name.join(" ")}
+          </p>
+        )}
       </div>
       <div>
-        <label htmlFor="project-description" className="label">Description</label>
+        <label htmlFor="project-description" className="label">
+          Description
+        </label>
         <input id="project-description" name="description" className="field" aria-invalid={!!fieldErrors.description} />
         {fieldErrors.description && <p className="field-error">{fieldErrors.description.join(" ")}</p>}
       </div>
       <div>
-        <label htmlFor="project-checker" className="label">Checker</label>
+        <label htmlFor="project-checker" className="label">
+          Checker
+        </label>
         <select id="project-checker" name="checkerId" className="field" defaultValue="">
           <option value="">not assigned</option>
           {checkers.map((c) => (
-            <option key={c.id} value={c.id}>{c.name}</option>
+            <option key={c.id} value={c.id}>
+              {c.name}
+            </option>
           ))}
         </select>
         {fieldErrors.checkerId && <p className="field-error">{fieldErrors.checkerId.join(" ")}</p>}
@@ -105,7 +129,9 @@ function CreateProjectForm({ checkers }: { checkers: { id: number; name: string 
         </button>
       </div>
       {message && Object.keys(fieldErrors).length === 0 && (
-        <p role="alert" className="field-error md:col-span-4">{message}</p>
+        <p role="alert" className="field-error md:col-span-4">
+          {message}
+        </p>
       )}
     </form>
   );

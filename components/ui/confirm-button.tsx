@@ -31,10 +31,14 @@ export function ConfirmButton({
         {label}
       </button>
       <dialog ref={ref} className="sheet max-w-md p-5 backdrop:bg-graphite/40" aria-labelledby={`${title}-title`.replace(/\W+/g, "-")}>
-        <h2 id={`${title}-title`.replace(/\W+/g, "-")} className="mb-2 text-base">{title}</h2>
+        <h2 id={`${title}-title`.replace(/\W+/g, "-")} className="mb-2 text-base">
+          {title}
+        </h2>
         <div className="space-y-2 text-sm">{children}</div>
         <form method="dialog" className="mt-4 flex justify-end gap-2">
-          <button type="submit" className="btn-quiet" value="cancel" autoFocus>Cancel</button>
+          <button type="submit" className="btn-quiet" value="cancel" autoFocus>
+            Cancel
+          </button>
           <button
             type="button"
             className="btn"

@@ -11,7 +11,19 @@ export interface Column<R> {
   numeric?: boolean;
 }
 
-export function SortableTable<R>({ rows, columns, rowKey, testId, initial }: { rows: R[]; columns: Column<R>[]; rowKey: (r: R) => string; testId?: string; initial?: { key: string; desc?: boolean } }) {
+export function SortableTable<R>({
+  rows,
+  columns,
+  rowKey,
+  testId,
+  initial,
+}: {
+  rows: R[];
+  columns: Column<R>[];
+  rowKey: (r: R) => string;
+  testId?: string;
+  initial?: { key: string; desc?: boolean };
+}) {
   const [by, setBy] = useState<{ key: string; desc: boolean }>({ key: initial?.key ?? columns[0].key, desc: initial?.desc ?? false });
   const col = columns.find((c) => c.key === by.key) ?? columns[0];
   const sorted = rows.slice().sort((a, b) => {
@@ -38,7 +50,9 @@ export function SortableTable<R>({ rows, columns, rowKey, testId, initial }: { r
         {sorted.map((r) => (
           <tr key={rowKey(r)}>
             {columns.map((c) => (
-              <td key={c.key} className={c.numeric ? "num text-right" : undefined}>{c.render(r)}</td>
+              <td key={c.key} className={c.numeric ? "num text-right" : undefined}>
+                {c.render(r)}
+              </td>
             ))}
           </tr>
         ))}

@@ -18,8 +18,13 @@ export async function up(knex: Knex): Promise<void> {
     .select("id", "layout_id", "fingerprint");
   for (const r of rows) {
     const next = r.fingerprint.replace(/\|case:.*$/, "");
-    const taken = await knex("threads").where({ layout_id: r.layout_id, fingerprint_hash: sha(next) }).first();
-    if (!taken) await knex("threads").where({ id: r.id }).update({ fingerprint: next, fingerprint_hash: sha(next) });
+    const taken = await knex("threads")
+      .where({ layout_id: r.layout_id, fingerprint_hash: sha(next) })
+      .first();
+    if (!taken)
+      await knex("threads")
+        .where({ id: r.id })
+        .update({ fingerprint: next, fingerprint_hash: sha(next) });
   }
 }
 

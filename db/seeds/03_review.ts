@@ -21,7 +21,13 @@ function analysed(file: string) {
   const parsed = parseLayoutText(text, { fileName: file });
   if (!parsed.ok) throw new Error(`example ${file} does not parse`);
   const { report } = runEngine(parsed.layout);
-  return { fileName: file, encoding: file.endsWith(".xml") ? ("xml" as const) : file.endsWith(".csv") ? ("csv" as const) : ("json" as const), raw: text, layout: parsed.layout, report };
+  return {
+    fileName: file,
+    encoding: file.endsWith(".xml") ? ("xml" as const) : file.endsWith(".csv") ? ("csv" as const) : ("json" as const),
+    raw: text,
+    layout: parsed.layout,
+    report,
+  };
 }
 
 async function user(knex: Knex, role: string): Promise<SessionUser> {
@@ -47,7 +53,13 @@ export async function seed(knex: Knex): Promise<void> {
   const chen = await user(knex, "checker");
 
   // 1. Breadboard: four feet, reviewed, then three seats; release requested
-  const board = await layout(knex, "Interferometer breadboard", "Breadboard support", "Support of the 600 × 450 mm interferometer breadboard on the lab bench.", dana);
+  const board = await layout(
+    knex,
+    "Interferometer breadboard",
+    "Breadboard support",
+    "Support of the 600 × 450 mm interferometer breadboard on the lab bench.",
+    dana,
+  );
   if (board) {
     await storeRevision(dana, board, analysed("breadboard-four-feet.json"));
     const loop = await thread(knex, board, "redundant-constraint");
@@ -76,15 +88,31 @@ export async function seed(knex: Knex): Promise<void> {
   }
 
   // 2. Instrument plate: preload too weak for shipping and inverted handling (open errors block release)
-  const plate = await layout(knex, "Detachable instrument plate", "Plate coupling", "Socket, vee and flat under the detector plate; nest spring preload.", dana);
+  const plate = await layout(
+    knex,
+    "Detachable instrument plate",
+    "Plate coupling",
+    "Socket, vee and flat under the detector plate; nest spring preload.",
+    dana,
+  );
   if (plate) {
     await storeRevision(dana, plate, analysed("instrument-plate-socket-vee-flat.xml"));
     const lift = await thread(knex, plate, "seat-lift-off");
-    await addComment(chen, lift.id, "The 40 N nest spring does not hold the plate in the 2 g lateral shipping case. Increase the preload or add a transport clamp, then re-upload.");
+    await addComment(
+      chen,
+      lift.id,
+      "The 40 N nest spring does not hold the plate in the 2 g lateral shipping case. Increase the preload or add a transport clamp, then re-upload.",
+    );
   }
 
   // 3. Flexure stage: one redundancy waived with a reason, then released
-  const stage = await layout(knex, "Two-blade flexure stage", "Stage guidance", "Carriage on two parallel blades; travel along x is the intended freedom.", dana);
+  const stage = await layout(
+    knex,
+    "Two-blade flexure stage",
+    "Stage guidance",
+    "Carriage on two parallel blades; travel along x is the intended freedom.",
+    dana,
+  );
   if (stage) {
     await storeRevision(dana, stage, analysed("flexure-stage-full-blades.json"));
     const red = await thread(knex, stage, "redundant-constraint");

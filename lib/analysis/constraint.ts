@@ -153,7 +153,10 @@ export function analyseConstraint(layout: Layout): ConstraintAnalysis {
   // Left null space from the SVD of Aᵀ (same singular values, so the same rank r). With no redundancy
   // (r = m, every exactly constrained mount) it is empty, and the second SVD is skipped.
   const selfStressBasis = m === 0 ? new Matrix(0, 0) : redundancies === 0 ? new Matrix(m, 0) : nullSpace(A.transpose(), r);
-  const selfStress = canonicalSelfStress(selfStressBasis, layout.contacts.map((k) => k.id));
+  const selfStress = canonicalSelfStress(
+    selfStressBasis,
+    layout.contacts.map((k) => k.id),
+  );
 
   return {
     bodyIds,
@@ -184,10 +187,11 @@ function readableMotions(Nb: Matrix, N: number): number[][] {
   if (f === 0) return [];
   const omegaRows: number[] = [];
   const vRows: number[] = [];
-  for (let b = 0; b < N; b++) for (let j = 0; j < 3; j++) {
-    omegaRows.push(6 * b + j);
-    vRows.push(6 * b + 3 + j);
-  }
+  for (let b = 0; b < N; b++)
+    for (let j = 0; j < 3; j++) {
+      omegaRows.push(6 * b + j);
+      vRows.push(6 * b + 3 + j);
+    }
   const Nw = Nb.selection(omegaRows, [...Array(f).keys()]);
   const { s: sw, V: Vw } = svdRight(Nw);
   const rw = rankOf(sw, 1e-8);
@@ -215,10 +219,11 @@ function readableMotions(Nb: Matrix, N: number): number[][] {
     const pitchOf = (t: number[]) => {
       let num = 0;
       let den = 0;
-      for (let b = 0; b < N; b++) for (let j = 0; j < 3; j++) {
-        num += t[6 * b + j] * t[6 * b + 3 + j];
-        den += t[6 * b + j] ** 2;
-      }
+      for (let b = 0; b < N; b++)
+        for (let j = 0; j < 3; j++) {
+          num += t[6 * b + j] * t[6 * b + 3 + j];
+          den += t[6 * b + j] ** 2;
+        }
       return Math.abs(num) / Math.max(den, 1e-300);
     };
     rotations.sort((a, b) => Number(pitchOf(a) > 1e-7) - Number(pitchOf(b) > 1e-7));
@@ -233,7 +238,11 @@ function pseudoInverse(M: Matrix): Matrix {
   const k = M.columns;
   const Vk = columns(V, 0, k);
   const U = M.mmul(Vk);
-  for (let c = 0; c < k; c++) U.setColumn(c, U.getColumn(c).map((v) => v / (s[c] * s[c])));
+  for (let c = 0; c < k; c++)
+    U.setColumn(
+      c,
+      U.getColumn(c).map((v) => v / (s[c] * s[c])),
+    );
   return Vk.mmul(U.transpose());
 }
 

@@ -48,10 +48,16 @@ export function analyseCouplings(layout: Layout): CouplingResult[] {
     const seats: SeatGeometry[] = [...features.entries()].map(([feature, cs]) => ({
       feature,
       kind: cs.length === 2 ? "vee" : cs.length === 3 ? "socket" : "flat",
-      centre: scale(cs.reduce((s, c) => [s[0] + c.point[0], s[1] + c.point[1], s[2] + c.point[2]] as Vec3, [0, 0, 0] as Vec3), 1 / cs.length),
+      centre: scale(
+        cs.reduce((s, c) => [s[0] + c.point[0], s[1] + c.point[1], s[2] + c.point[2]] as Vec3, [0, 0, 0] as Vec3),
+        1 / cs.length,
+      ),
       contacts: cs.map((c) => c.id),
     }));
-    const sizes = [...features.values()].map((cs) => cs.length).sort().join("");
+    const sizes = [...features.values()]
+      .map((cs) => cs.length)
+      .sort()
+      .join("");
     if (sizes !== "222" && sizes !== "123") continue;
     const kind = sizes === "222" ? "three-vee" : "socket-vee-flat";
     const [p0, p1, p2] = seats.map((s) => s.centre);

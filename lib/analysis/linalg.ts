@@ -24,7 +24,10 @@ export function svdRight(A: Matrix): RightSvd {
     autoTranspose: false,
   });
   const raw = svd.diagonal;
-  const order = raw.map((v, i) => [v, i] as const).sort((a, b) => b[0] - a[0]).map(([, i]) => i);
+  const order = raw
+    .map((v, i) => [v, i] as const)
+    .sort((a, b) => b[0] - a[0])
+    .map(([, i]) => i);
   const V = new Matrix(n, n);
   order.forEach((src, dst) => V.setColumn(dst, svd.rightSingularVectors.getColumn(src)));
   return { s: order.slice(0, Math.min(m, n)).map((i) => raw[i]), V };

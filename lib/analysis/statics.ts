@@ -359,7 +359,18 @@ function solveCase(ctx: Ctx, id: string, gravity: Vec3, loadIds: string[] | unde
     displacement = solveStiff(ctx, ks, active, w).u;
   }
   const stiffnessLabel: StiffnessSource = ctx.c.counts.redundancies === 0 ? "none" : source;
-  return { id, gravity, driven: false, seating: { forces, liftOff, stiffness: stiffnessLabel, margin }, unloaded, hertz, force: f, active, displacement, tangent };
+  return {
+    id,
+    gravity,
+    driven: false,
+    seating: { forces, liftOff, stiffness: stiffnessLabel, margin },
+    unloaded,
+    hertz,
+    force: f,
+    active,
+    displacement,
+    tangent,
+  };
 }
 
 /** Displacement of a body point (file length units) under a scaled displacement u. */
@@ -394,7 +405,18 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
   const cases: CaseResult[] = caseDefs.map((lc) =>
     hasLoad && m > 0
       ? solveCase(ctx, lc.id, lc.gravity, lc.loads, source)
-      : { id: lc.id, gravity: lc.gravity, driven: false, seating: null, unloaded: [], hertz: {}, force: null, active: new Array(m).fill(true), displacement: null, tangent: source === "file" ? layout.contacts.map((k) => k.stiffness!) : null },
+      : {
+          id: lc.id,
+          gravity: lc.gravity,
+          driven: false,
+          seating: null,
+          unloaded: [],
+          hertz: {},
+          force: null,
+          active: new Array(m).fill(true),
+          displacement: null,
+          tangent: source === "file" ? layout.contacts.map((k) => k.stiffness!) : null,
+        },
   );
 
   // Foundation coupling with the first case's active contacts and tangent stiffness.
@@ -415,7 +437,11 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
   const columnOf = (d: number[]): number[] => {
     // Δλ = K d − K A (AᵀKA)⁺ Aᵀ K d, over the active contacts
     const k = kFound!;
-    foundFactor ??= factorStiff(ctx, k.map((v) => (v > 0 ? v : 1)), active);
+    foundFactor ??= factorStiff(
+      ctx,
+      k.map((v) => (v > 0 ? v : 1)),
+      active,
+    );
     const Kd = d.map((v, i) => (active[i] ? k[i] * v : 0));
     const w = new Array<number>(ctx.n).fill(0);
     for (let i = 0; i < m; i++) if (Kd[i] !== 0) for (let q = 0; q < ctx.n; q++) w[q] += c.A.get(i, q) * Kd[i];
@@ -438,14 +464,15 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
       });
       sensitivity[layout.contacts[j].id] = entry;
     }
-    const warp = c.counts.redundancies === 0
-      ? []
-      : c.selfStress.map((state) => {
-          const d = layout.contacts.map((k) => (k.on === GROUND ? state.forces[k.id] ?? 0 : 0));
-          const big = Math.max(...d.map(Math.abs));
-          const resp = big > 0 ? columnOf(d.map((v) => (v / big) * perUm)) : new Array<number>(m).fill(0);
-          return { pivot: state.pivot, forces: Object.fromEntries(layout.contacts.map((k, i) => [k.id, resp[i]])) };
-        });
+    const warp =
+      c.counts.redundancies === 0
+        ? []
+        : c.selfStress.map((state) => {
+            const d = layout.contacts.map((k) => (k.on === GROUND ? (state.forces[k.id] ?? 0) : 0));
+            const big = Math.max(...d.map(Math.abs));
+            const resp = big > 0 ? columnOf(d.map((v) => (v / big) * perUm)) : new Array<number>(m).fill(0);
+            return { pivot: state.pivot, forces: Object.fromEntries(layout.contacts.map((k, i) => [k.id, resp[i]])) };
+          });
     foundation = { sensitivity, maxPerMicrometre: max, warp, stiffness: c.counts.redundancies === 0 ? "none" : source };
   }
 
@@ -455,7 +482,13 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
     const kPts = kFound ?? layout.contacts.map(() => 1);
     const activePts = first.active;
     for (const pt of layout.points) points[pt.id] = { perMicrometre: {}, seatedUm: null, body: pt.body };
-    const ptFactor = ground.length ? factorStiff(ctx, kPts.map((v) => (v > 0 ? v : 1)), activePts) : null;
+    const ptFactor = ground.length
+      ? factorStiff(
+          ctx,
+          kPts.map((v) => (v > 0 ? v : 1)),
+          activePts,
+        )
+      : null;
     for (const j of ground) {
       if (!activePts[j]) continue;
       const d = new Array<number>(m).fill(0);

@@ -19,7 +19,10 @@ export function errorResponse(err: unknown): Response {
   if (err instanceof AppError) {
     // located errors of a refused file sit at the top level (`errors`) in every answer, as in a 422 refusal
     const located = (err.details as { errors?: unknown } | undefined)?.errors;
-    return Response.json({ error: err.message, ...(err.details ? { details: err.details } : {}), ...(Array.isArray(located) ? { errors: located } : {}) }, { status: err.status });
+    return Response.json(
+      { error: err.message, ...(err.details ? { details: err.details } : {}), ...(Array.isArray(located) ? { errors: located } : {}) },
+      { status: err.status },
+    );
   }
   if (isDatabaseUnreachable(err)) {
     const code = (err as { code?: string }).code ?? "";
@@ -76,7 +79,10 @@ export function parseWith<S extends z.ZodType>(schema: S, value: unknown): z.inf
  * cancelled and 413 thrown, so an endless upload never sits in memory.
  */
 export async function readBodyLimited(req: Request, limit: number): Promise<Uint8Array<ArrayBuffer>> {
-  const tooLarge = () => new AppError(413, `The file is larger than the ${Math.round(limit / 1048576)} MB limit. Nothing was stored.`, { errors: [{ location: "file", message: `larger than ${Math.round(limit / 1048576)} MB` }] });
+  const tooLarge = () =>
+    new AppError(413, `The file is larger than the ${Math.round(limit / 1048576)} MB limit. Nothing was stored.`, {
+      errors: [{ location: "file", message: `larger than ${Math.round(limit / 1048576)} MB` }],
+    });
   if (Number(req.headers.get("content-length") ?? 0) > limit) throw tooLarge();
   if (!req.body) return new Uint8Array(0);
   const reader = req.body.getReader();

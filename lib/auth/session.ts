@@ -44,7 +44,8 @@ export async function currentUser(): Promise<SessionUser | null> {
 export async function requireUser(): Promise<SessionUser> {
   const user = await currentUser();
   if (!user) {
-    if ((await bearer()) !== null) throw unauthorized("The API token is not valid: it is unknown, revoked, or its account is deactivated. Create a new one under Settings → API tokens.");
+    if ((await bearer()) !== null)
+      throw unauthorized("The API token is not valid: it is unknown, revoked, or its account is deactivated. Create a new one under Settings → API tokens.");
     throw unauthorized();
   }
   return user;

@@ -46,8 +46,10 @@ export function renderText(r: Report): string {
     lines.push("", `Seat forces by load case (${fu}; stiffness: ${solved[0].seating!.stiffness}; < marks each seat's worst case)`);
     lines.push(`  ${"contact".padEnd(12)}${solved.map((c) => c.id.slice(0, 18).padStart(20)).join("")}`);
     for (const id of ids) {
-      const cells = solved.map((c) => (c.seating!.forces === null ? "not held" : c.seating!.liftOff.includes(id) ? "lifts off" : num(c.seating!.forces[id] ?? 0)));
-      const values = solved.map((c) => (c.seating!.forces === null || c.seating!.liftOff.includes(id) ? -Infinity : c.seating!.forces[id] ?? 0));
+      const cells = solved.map((c) =>
+        c.seating!.forces === null ? "not held" : c.seating!.liftOff.includes(id) ? "lifts off" : num(c.seating!.forces[id] ?? 0),
+      );
+      const values = solved.map((c) => (c.seating!.forces === null || c.seating!.liftOff.includes(id) ? -Infinity : (c.seating!.forces[id] ?? 0)));
       const worst = solved.length > 1 ? values.indexOf(Math.min(...values)) : -1;
       lines.push(`  ${id.padEnd(12)}${cells.map((v, i) => (v + (i === worst ? " <" : "  ")).padStart(20)).join("")}`);
     }

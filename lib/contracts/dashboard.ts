@@ -4,7 +4,11 @@ import { z } from "zod";
 export const dashboardFilterSchema = z.object({
   project: z.coerce.number().int().positive().optional(),
   checker: z.coerce.number().int().positive().optional(),
-  rule: z.string().regex(/^[a-z]+(-[a-z]+)*$/).max(60).optional(),
+  rule: z
+    .string()
+    .regex(/^[a-z]+(-[a-z]+)*$/)
+    .max(60)
+    .optional(),
   days: z.coerce.number().int().min(7).max(365).default(60),
 });
 
@@ -26,7 +30,14 @@ export interface DashboardDto {
   rows: DashboardRow[];
   totals: { error: number; warning: number; info: number; underWeek: number; underMonth: number; older: number };
   trend: { day: string; open: number }[];
-  layouts: { id: number; name: string; project: string; revision: number; state: "ready" | "blocked" | "requested" | "released"; blocking: { threadId: number; title: string }[] }[];
+  layouts: {
+    id: number;
+    name: string;
+    project: string;
+    revision: number;
+    state: "ready" | "blocked" | "requested" | "released";
+    blocking: { threadId: number; title: string }[];
+  }[];
   rules: string[];
   projects: { id: number; name: string }[];
   checkers: { id: number; name: string }[];

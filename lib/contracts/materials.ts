@@ -16,7 +16,10 @@ export interface ProjectMaterialDto {
 
 export const projectMaterialSchema = z
   .object({
-    id: z.string().trim().regex(/^[a-z0-9][a-z0-9-]{0,99}$/, "Use a kebab-case id: lower-case letters, digits and hyphens."),
+    id: z
+      .string()
+      .trim()
+      .regex(/^[a-z0-9][a-z0-9-]{0,99}$/, "Use a kebab-case id: lower-case letters, digits and hyphens."),
     youngsModulusGPa: optionalPositive,
     poissonRatio: z.number().gt(-1).lt(0.5, "Poisson's ratio lies between −1 and 0.5.").nullable().optional(),
     allowableContactPressureMPa: optionalPositive,

@@ -41,7 +41,11 @@ export interface FindingRowDto {
 export interface RevisionDiff {
   from: number;
   to: number;
-  contacts: { added: string[]; removed: string[]; moved: { id: string; from: [number, number, number]; to: [number, number, number]; normalChanged: boolean }[] };
+  contacts: {
+    added: string[];
+    removed: string[];
+    moved: { id: string; from: [number, number, number]; to: [number, number, number]; normalChanged: boolean }[];
+  };
   findings: {
     new: { threadId: number; title: string; severity: string }[];
     resolved: { threadId: number; title: string; severity: string }[];

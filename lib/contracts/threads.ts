@@ -38,6 +38,10 @@ export interface ThreadDto {
 export const commentSchema = z.object({ body: z.string().trim().min(1, "Write something first.").max(20000, "A comment is at most 20,000 characters.") });
 
 export const statusSchema = z.discriminatedUnion("action", [
-  z.object({ action: z.literal("waive"), reason: z.string().trim().min(10, "Give a justification of at least 10 characters.").max(4000), version: z.number().int().positive() }),
+  z.object({
+    action: z.literal("waive"),
+    reason: z.string().trim().min(10, "Give a justification of at least 10 characters.").max(4000),
+    version: z.number().int().positive(),
+  }),
   z.object({ action: z.literal("reopen"), reason: z.string().trim().max(4000).default(""), version: z.number().int().positive() }),
 ]);

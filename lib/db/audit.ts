@@ -6,7 +6,6 @@ import { iso } from "./rows";
 import type { AuditSubject, AuditKind, AuditDto } from "@/lib/contracts/audit";
 export type { AuditSubject, AuditKind, AuditDto } from "@/lib/contracts/audit";
 
-
 interface AuditRow {
   id: number;
   subject: AuditSubject;
@@ -18,11 +17,21 @@ interface AuditRow {
   created_at: Date;
 }
 
-
-const toDto = (r: AuditRow): AuditDto => ({ id: r.id, subject: r.subject, subjectId: r.subject_id, kind: r.kind, detail: JSON.parse(r.detail), actor: r.actor_name, createdAt: iso(r.created_at) });
+const toDto = (r: AuditRow): AuditDto => ({
+  id: r.id,
+  subject: r.subject,
+  subjectId: r.subject_id,
+  kind: r.kind,
+  detail: JSON.parse(r.detail),
+  actor: r.actor_name,
+  createdAt: iso(r.created_at),
+});
 
 /** Appends one entry (inside the caller's transaction when given). */
-export async function recordAudit(q: Knex | Knex.Transaction, e: { subject: AuditSubject; subjectId: number; kind: AuditKind; actorId: number; detail: Record<string, unknown> }): Promise<void> {
+export async function recordAudit(
+  q: Knex | Knex.Transaction,
+  e: { subject: AuditSubject; subjectId: number; kind: AuditKind; actorId: number; detail: Record<string, unknown> },
+): Promise<void> {
   await q("audit_log").insert({ subject: e.subject, subject_id: e.subjectId, kind: e.kind, actor_id: e.actorId, detail: JSON.stringify(e.detail) });
 }
 

@@ -6,11 +6,11 @@ import type { DashboardFilter, DashboardRow, DashboardDto } from "@/lib/contract
 export type { DashboardFilter, DashboardRow, DashboardDto } from "@/lib/contracts/dashboard";
 export { dashboardFilterSchema } from "@/lib/contracts/dashboard";
 
-
-
-
 function openThreads(f: DashboardFilter) {
-  const q = db()("threads as t").join("layouts as l", "l.id", "t.layout_id").join("projects as p", "p.id", "l.project_id").whereIn("t.status", ["open", "reopened"]);
+  const q = db()("threads as t")
+    .join("layouts as l", "l.id", "t.layout_id")
+    .join("projects as p", "p.id", "l.project_id")
+    .whereIn("t.status", ["open", "reopened"]);
   if (f.project) q.where("p.id", f.project);
   if (f.checker) q.where("p.checker_id", f.checker);
   if (f.rule) q.where("t.rule", f.rule);
@@ -47,7 +47,17 @@ export async function dashboard(_user: SessionUser, f: DashboardFilter): Promise
     older: Number(r.older),
   });
   const out = rows.map(num);
-  const totals = out.reduce((s, r) => ({ error: s.error + r.error, warning: s.warning + r.warning, info: s.info + r.info, underWeek: s.underWeek + r.underWeek, underMonth: s.underMonth + r.underMonth, older: s.older + r.older }), { error: 0, warning: 0, info: 0, underWeek: 0, underMonth: 0, older: 0 });
+  const totals = out.reduce(
+    (s, r) => ({
+      error: s.error + r.error,
+      warning: s.warning + r.warning,
+      info: s.info + r.info,
+      underWeek: s.underWeek + r.underWeek,
+      underMonth: s.underMonth + r.underMonth,
+      older: s.older + r.older,
+    }),
+    { error: 0, warning: 0, info: 0, underWeek: 0, underMonth: 0, older: 0 },
+  );
 
   // trend: net change of open findings per day from the events (+ open/reopen, − resolve/waive), summed in SQL
   const changes = db()("events as e")
@@ -90,13 +100,18 @@ export async function dashboard(_user: SessionUser, f: DashboardFilter): Promise
   const blockers = layoutRows.length
     ? await db()("findings as fi")
         .join("threads as t", "t.id", "fi.thread_id")
-        .whereIn("fi.revision_id", layoutRows.map((r: { revision_id: number }) => r.revision_id))
+        .whereIn(
+          "fi.revision_id",
+          layoutRows.map((r: { revision_id: number }) => r.revision_id),
+        )
         .where("fi.severity", "error")
         .whereIn("t.status", ["open", "reopened"])
         .select("fi.revision_id", "t.id", "t.title")
     : [];
   const layouts = layoutRows.map((r: Record<string, unknown>) => {
-    const blocking = blockers.filter((b: { revision_id: number }) => b.revision_id === r.revision_id).map((b: { id: number; title: string }) => ({ threadId: b.id, title: b.title }));
+    const blocking = blockers
+      .filter((b: { revision_id: number }) => b.revision_id === r.revision_id)
+      .map((b: { id: number; title: string }) => ({ threadId: b.id, title: b.title }));
     const state: DashboardDto["layouts"][number]["state"] = r.approved_at ? "released" : blocking.length ? "blocked" : r.requested_at ? "requested" : "ready";
     return { id: r.id as number, name: r.name as string, project: r.project as string, revision: r.number as number, state, blocking };
   });

@@ -6,8 +6,6 @@ import { db } from "./knex";
 import type { EventKind, EventDto } from "@/lib/contracts/events";
 export type { EventKind, EventDto } from "@/lib/contracts/events";
 
-
-
 /** Appends one event (inside the caller's transaction when given). */
 export async function recordEvent(
   trx: Knex | Knex.Transaction,

@@ -19,7 +19,11 @@ interface LatestFindingRow {
 }
 
 /** The newest revision's findings filtered by review state, in one round trip; 404 for an unknown layout. */
-export async function latestFindings(_user: SessionUser, layoutId: number, status: FindingStatusFilter): Promise<{ revision: { id: number; number: number } | null; findings: ApiFindingDto[] }> {
+export async function latestFindings(
+  _user: SessionUser,
+  layoutId: number,
+  status: FindingStatusFilter,
+): Promise<{ revision: { id: number; number: number } | null; findings: ApiFindingDto[] }> {
   const wanted = status === "open" ? ["open", "reopened"] : status === "all" ? null : [status];
   const all: LatestFindingRow[] = await db()("revisions as v")
     .leftJoin("findings as f", "f.revision_id", "v.id")
@@ -34,6 +38,15 @@ export async function latestFindings(_user: SessionUser, layoutId: number, statu
   }
   const findings = all
     .filter((r) => r.id !== null && (!wanted || wanted.includes(r.status as string)))
-    .map((f) => ({ id: f.id!, rule: f.rule!, severity: f.severity!, title: f.title!, status: f.status!, contacts: JSON.parse(f.contacts ?? "[]") as string[], loadCase: f.load_case ?? null, body: f.body! }));
+    .map((f) => ({
+      id: f.id!,
+      rule: f.rule!,
+      severity: f.severity!,
+      title: f.title!,
+      status: f.status!,
+      contacts: JSON.parse(f.contacts ?? "[]") as string[],
+      loadCase: f.load_case ?? null,
+      body: f.body!,
+    }));
   return { revision: { id: all[0].revision_id, number: all[0].number }, findings };
 }

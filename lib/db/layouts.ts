@@ -11,8 +11,6 @@ import { layoutInputSchema } from "@/lib/contracts/layouts";
 export type { LayoutSummaryDto } from "@/lib/contracts/layouts";
 export { layoutInputSchema } from "@/lib/contracts/layouts";
 
-
-
 interface LayoutRow {
   id: number;
   project_id: number;
@@ -33,12 +31,18 @@ async function summaries(where: (q: ReturnType<ReturnType<typeof db>>) => void):
   const rows: LayoutRow[] = await q;
   if (!rows.length) return [];
   const ids = rows.map((r) => r.id);
-  const revs = await db()("revisions").whereIn("layout_id", ids).select("id", "layout_id", "number", "created_at", "freedoms", "redundancies").orderBy("number", "asc");
+  const revs = await db()("revisions")
+    .whereIn("layout_id", ids)
+    .select("id", "layout_id", "number", "created_at", "freedoms", "redundancies")
+    .orderBy("number", "asc");
   const counts: { layout_id: number; status: string; severity: string; n: number }[] = await db()("threads")
     .whereIn("layout_id", ids)
     .select("layout_id", "status", "severity", db().raw("count(*) as n"))
     .groupBy("layout_id", "status", "severity");
-  const releases = await db()("releases as r").join("revisions as v", "v.id", "r.revision_id").whereIn("v.layout_id", ids).select("v.layout_id", "v.id as revision_id", "r.approved_at");
+  const releases = await db()("releases as r")
+    .join("revisions as v", "v.id", "r.revision_id")
+    .whereIn("v.layout_id", ids)
+    .select("v.layout_id", "v.id as revision_id", "r.approved_at");
   return rows.map((r) => {
     const mine = revs.filter((v) => v.layout_id === r.id);
     const latest = mine[mine.length - 1];
@@ -54,7 +58,9 @@ async function summaries(where: (q: ReturnType<ReturnType<typeof db>>) => void):
       createdBy: r.creator,
       createdAt: iso(r.created_at),
       revisions: mine.length,
-      latestRevision: latest ? { id: latest.id, number: latest.number, createdAt: iso(latest.created_at), freedoms: latest.freedoms, redundancies: latest.redundancies } : null,
+      latestRevision: latest
+        ? { id: latest.id, number: latest.number, createdAt: iso(latest.created_at), freedoms: latest.freedoms, redundancies: latest.redundancies }
+        : null,
       openErrors: c(["open", "reopened"], "error"),
       openWarnings: c(["open", "reopened"], "warning"),
       openInfos: c(["open", "reopened"], "info"),
@@ -84,7 +90,8 @@ export async function createLayout(user: SessionUser, projectId: number, input: 
   if (!allowed(user.role, "createLayout")) throw forbidden("Only designers create layouts.");
   const project = await db()("projects").where({ id: projectId }).first();
   if (!project) throw notFound("That project");
-  if (await db()("layouts").where({ project_id: projectId, name: input.name }).first()) throw conflict(`This project already has a layout named "${input.name}".`);
+  if (await db()("layouts").where({ project_id: projectId, name: input.name }).first())
+    throw conflict(`This project already has a layout named "${input.name}".`);
   const [id] = await db()("layouts").insert({ project_id: projectId, name: input.name, description: input.description ?? "", created_by: user.id });
   return getLayout(user, id);
 }

@@ -25,8 +25,6 @@ interface MaterialRow {
   updated_at: Date;
 }
 
-
-
 const toDto = (r: MaterialRow): ProjectMaterialDto => ({
   id: r.material_id,
   youngsModulusGPa: r.youngs_modulus_gpa,
@@ -40,7 +38,11 @@ const toDto = (r: MaterialRow): ProjectMaterialDto => ({
 
 /** The library of one project (every role may read it). */
 export async function listProjectMaterials(_user: SessionUser | null, projectId: number): Promise<ProjectMaterialDto[]> {
-  const rows = await db()<MaterialRow>("project_materials as m").leftJoin("users as u", "u.id", "m.set_by").where("m.project_id", projectId).orderBy("m.material_id").select("m.*", "u.name as set_by_name");
+  const rows = await db()<MaterialRow>("project_materials as m")
+    .leftJoin("users as u", "u.id", "m.set_by")
+    .where("m.project_id", projectId)
+    .orderBy("m.material_id")
+    .select("m.*", "u.name as set_by_name");
   return rows.map((r) => toDto(r as MaterialRow));
 }
 

@@ -73,12 +73,16 @@ export async function dueMails(limit: number): Promise<OutboxRow[]> {
 
 /** Marks one mail sent. */
 export async function markSent(id: number, attempts: number): Promise<void> {
-  await db()("mail_outbox").where({ id }).update({ status: "sent", sent_at: db().fn.now(3), attempts, last_error: null });
+  await db()("mail_outbox")
+    .where({ id })
+    .update({ status: "sent", sent_at: db().fn.now(3), attempts, last_error: null });
 }
 
 /** Records a failed attempt with its next try (or gives up). */
 export async function markFailed(id: number, attempts: number, error: string, giveUp: boolean, nextAttemptAt: Date): Promise<void> {
-  await db()("mail_outbox").where({ id }).update({ attempts, last_error: error.slice(0, 1000), status: giveUp ? "failed" : "pending", next_attempt_at: nextAttemptAt });
+  await db()("mail_outbox")
+    .where({ id })
+    .update({ attempts, last_error: error.slice(0, 1000), status: giveUp ? "failed" : "pending", next_attempt_at: nextAttemptAt });
 }
 
 /** The outbox for the admin page, newest first. */

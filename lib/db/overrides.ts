@@ -16,12 +16,14 @@ import type { OverrideInput, OverrideDto } from "@/lib/contracts/overrides";
 export type { OverrideInput, OverrideDto } from "@/lib/contracts/overrides";
 export { overrideInputSchema } from "@/lib/contracts/overrides";
 
-
-
-
 /** What the form offers: every rule with its default severity and default options. */
 export function ruleCatalogue(): { id: string; severity: Severity; summary: string; defaults: Record<string, unknown> }[] {
-  return rules.map((r) => ({ id: r.meta.id, severity: r.meta.severity, summary: r.meta.summary, defaults: r.meta.options.parse({}) as Record<string, unknown> }));
+  return rules.map((r) => ({
+    id: r.meta.id,
+    severity: r.meta.severity,
+    summary: r.meta.summary,
+    defaults: r.meta.options.parse({}) as Record<string, unknown>,
+  }));
 }
 
 type Row = Record<string, unknown>;
@@ -48,7 +50,11 @@ export async function listOverrides(_user: SessionUser, projectId: number): Prom
 }
 
 async function readOverrides(projectId: number): Promise<{ current: OverrideDto[]; history: OverrideDto[] }> {
-  const rows: Row[] = await db()("rule_overrides as o").join("users as u", "u.id", "o.set_by").where("o.project_id", projectId).select("o.*", "u.name as set_by_name").orderBy("o.id", "desc");
+  const rows: Row[] = await db()("rule_overrides as o")
+    .join("users as u", "u.id", "o.set_by")
+    .where("o.project_id", projectId)
+    .select("o.*", "u.name as set_by_name")
+    .orderBy("o.id", "desc");
   const history = rows.map(toDto);
   const seen = new Set<string>();
   const current: OverrideDto[] = [];
@@ -66,7 +72,9 @@ function checkedOptions(ruleId: string, options: Record<string, unknown>): Recor
   const known = Object.keys(meta.options.parse({}) as Record<string, unknown>);
   const unknown = Object.keys(options).filter((k) => !known.includes(k));
   if (unknown.length) {
-    throw invalid(`"${ruleId}" has no option ${unknown.map((k) => `"${k}"`).join(", ")}.`, { fieldErrors: { options: [known.length ? `Known options: ${known.join(", ")}.` : "This rule takes no options."] } });
+    throw invalid(`"${ruleId}" has no option ${unknown.map((k) => `"${k}"`).join(", ")}.`, {
+      fieldErrors: { options: [known.length ? `Known options: ${known.join(", ")}.` : "This rule takes no options."] },
+    });
   }
   const parsed = meta.options.safeParse(options);
   if (!parsed.success) {
@@ -85,13 +93,26 @@ export async function changeOverride(user: SessionUser, projectId: number, input
   let row: Record<string, unknown>;
   if (input.action === "clear") {
     const { current } = await readOverrides(projectId);
-    if (!current.some((o) => o.rule === input.rule)) throw invalid(`No override of "${input.rule}" is in force in this project.`, { fieldErrors: { rule: ["Nothing to clear."] } });
+    if (!current.some((o) => o.rule === input.rule))
+      throw invalid(`No override of "${input.rule}" is in force in this project.`, { fieldErrors: { rule: ["Nothing to clear."] } });
     row = { project_id: projectId, rule: input.rule, severity: null, options: null, cleared: true, reason: input.reason, set_by: user.id };
   } else {
     const options = input.options && Object.keys(input.options).length ? checkedOptions(input.rule, input.options) : null;
     const severity = input.severity && input.severity !== meta.severity ? input.severity : null;
-    if (!severity && !options) throw invalid("Change the severity or give options; an override that changes nothing is not stored (to return to the rule's own setting, clear its override).", { fieldErrors: { severity: ["Pick a severity other than the rule's own, or give options."] } });
-    row = { project_id: projectId, rule: input.rule, severity, options: options ? JSON.stringify(options) : null, cleared: false, reason: input.reason, set_by: user.id };
+    if (!severity && !options)
+      throw invalid(
+        "Change the severity or give options; an override that changes nothing is not stored (to return to the rule's own setting, clear its override).",
+        { fieldErrors: { severity: ["Pick a severity other than the rule's own, or give options."] } },
+      );
+    row = {
+      project_id: projectId,
+      rule: input.rule,
+      severity,
+      options: options ? JSON.stringify(options) : null,
+      cleared: false,
+      reason: input.reason,
+      set_by: user.id,
+    };
   }
   const [id] = await db()("rule_overrides").insert(row);
   const stored = await db()("rule_overrides as o").join("users as u", "u.id", "o.set_by").where("o.id", id).select("o.*", "u.name as set_by_name").first();

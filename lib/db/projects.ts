@@ -21,8 +21,6 @@ interface ProjectRow {
   creator_name?: string | null;
 }
 
-
-
 function toDto(row: ProjectRow): ProjectDto {
   return {
     id: row.id,
@@ -73,7 +71,6 @@ export async function getProject(_user: SessionUser, id: number): Promise<Projec
   return toDto(row as ProjectRow);
 }
 
-
 /** A manager assigns or changes the project's checker (null leaves it open to every checker); recorded in the history. */
 export async function assignChecker(user: SessionUser, projectId: number, checkerId: number | null): Promise<ProjectDto> {
   if (!allowed(user.role, "assignChecker")) throw forbidden("Only managers assign a project's checker.");
@@ -86,10 +83,16 @@ export async function assignChecker(user: SessionUser, projectId: number, checke
     checkerName = checker.name;
   }
   if ((project.checker_id ?? null) !== checkerId) {
-    const before = project.checker_id ? (await db()("users").where({ id: project.checker_id }).first())?.name ?? null : null;
+    const before = project.checker_id ? ((await db()("users").where({ id: project.checker_id }).first())?.name ?? null) : null;
     await transaction(async (trx) => {
       await trx("projects").where({ id: projectId }).update({ checker_id: checkerId });
-      await recordAudit(trx, { subject: "project", subjectId: projectId, kind: "checker-assigned", actorId: user.id, detail: { from: before, to: checkerName } });
+      await recordAudit(trx, {
+        subject: "project",
+        subjectId: projectId,
+        kind: "checker-assigned",
+        actorId: user.id,
+        detail: { from: before, to: checkerName },
+      });
     });
   }
   return getProject(user, projectId);

@@ -30,10 +30,18 @@ async function latestOf(layoutId: number, q: Knex | Knex.Transaction = db()) {
 }
 
 /** Who hears of a release step of a revision: the layout's name and owner, the project's checker (or every active checker), the requester. */
-export async function releaseAudience(revisionId: number): Promise<{ layoutId: number; layoutName: string; number: number; owner: number; checkers: number[]; requester: number | null }> {
+export async function releaseAudience(
+  revisionId: number,
+): Promise<{ layoutId: number; layoutName: string; number: number; owner: number; checkers: number[]; requester: number | null }> {
   const rev = await db()("revisions").where({ id: revisionId }).first();
-  const l = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layout_id).select("l.name", "l.created_by", "p.checker_id").first();
-  const checkers = l.checker_id ? [l.checker_id as number] : (await db()("users").where({ role: "checker", active: true }).select("id")).map((u: { id: number }) => u.id);
+  const l = await db()("layouts as l")
+    .join("projects as p", "p.id", "l.project_id")
+    .where("l.id", rev.layout_id)
+    .select("l.name", "l.created_by", "p.checker_id")
+    .first();
+  const checkers = l.checker_id
+    ? [l.checker_id as number]
+    : (await db()("users").where({ role: "checker", active: true }).select("id")).map((u: { id: number }) => u.id);
   const req = await db()("releases").where({ revision_id: revisionId }).first();
   return { layoutId: rev.layout_id, layoutName: l.name, number: rev.number, owner: l.created_by, checkers, requester: req?.requested_by ?? null };
 }
@@ -87,7 +95,12 @@ export async function approveRelease(
   const latest = await latestOf(rev.layout_id);
   if (latest.id !== rev.id) throw conflict(`A newer revision (${latest.number}) exists; release that one instead.`);
   const blocking = await blockingFindings(revisionId);
-  if (blocking.length) throw new AppError(409, `${blocking.length} error finding${blocking.length === 1 ? " is" : "s are"} still open: ${blocking.map((b) => b.title).join("; ")}`, { blocking });
+  if (blocking.length)
+    throw new AppError(
+      409,
+      `${blocking.length} error finding${blocking.length === 1 ? " is" : "s are"} still open: ${blocking.map((b) => b.title).join("; ")}`,
+      { blocking },
+    );
   // the report is written from the review as it stands now; the transaction refuses if the review moves on meanwhile
   const stamp = await reviewStamp(rev.layout_id);
   // the approval the report records is exactly the one stored below (same person, same instant)
@@ -95,9 +108,13 @@ export async function approveRelease(
   const md = reportMarkdown ? await reportMarkdown(revisionId, { by: user.name, at: approvedAt }) : null;
   await transaction(async (trx) => {
     await lockLayout(trx, rev.layout_id, "update");
-    if ((await reviewStamp(rev.layout_id, trx)) !== stamp) throw conflict("The review changed while the release was being approved (a comment, waiver or upload). Reload and approve again.");
+    if ((await reviewStamp(rev.layout_id, trx)) !== stamp)
+      throw conflict("The review changed while the release was being approved (a comment, waiver or upload). Reload and approve again.");
     if ((await blockingFindings(revisionId, trx)).length) throw conflict("An error finding was reopened a moment ago; the release stays blocked.");
-    const n = await trx("releases").where({ revision_id: revisionId }).whereNull("approved_at").update({ approved_by: user.id, approved_at: approvedAt, report_md: md });
+    const n = await trx("releases")
+      .where({ revision_id: revisionId })
+      .whereNull("approved_at")
+      .update({ approved_by: user.id, approved_at: approvedAt, report_md: md });
     if (n !== 1) throw conflict("This revision was released by someone else a moment ago.");
     await recordEvent(trx, { layoutId: rev.layout_id, kind: "release", actorId: user.id, revisionId, detail: { number: rev.number } });
   });

@@ -21,10 +21,17 @@ interface OverrideReasonRow {
 /** Loads a revision with its layout and project names, the review state of its threads and the reasons of the overrides it was analysed with. */
 export async function loadReleaseReportData(user: SessionUser, revisionId: number): Promise<ReleaseReportData> {
   const rev = await getRevision(user, revisionId);
-  const names: { name: string; project: string } = await db()("layouts as l").join("projects as p", "p.id", "l.project_id").where("l.id", rev.layoutId).select("l.name", "p.name as project").first();
+  const names: { name: string; project: string } = await db()("layouts as l")
+    .join("projects as p", "p.id", "l.project_id")
+    .where("l.id", rev.layoutId)
+    .select("l.name", "p.name as project")
+    .first();
   const threads: ThreadStateRow[] = await db()("threads as t")
     .leftJoin("users as u", "u.id", "t.waived_by")
-    .whereIn("t.id", rev.findings.map((f) => f.threadId))
+    .whereIn(
+      "t.id",
+      rev.findings.map((f) => f.threadId),
+    )
     .select("t.id", "t.status", "t.waiver_reason", "u.name as waiver");
   // the reason and author of each override as it stood when the revision was analysed
   const reasons: OverrideReasonRow[] = Object.keys(rev.overrides).length

@@ -16,9 +16,6 @@ import type { RuleOverride } from "@/rules";
 import type { RevisionSummaryDto, RevisionDto, FindingRowDto, RevisionDiff } from "@/lib/contracts/revisions";
 export type { RevisionSummaryDto, RevisionDto, FindingRowDto, RevisionDiff } from "@/lib/contracts/revisions";
 
-
-
-
 type Row = Record<string, unknown>;
 
 function toSummary(r: Row): RevisionSummaryDto {
@@ -28,7 +25,13 @@ function toSummary(r: Row): RevisionSummaryDto {
     number: r.number as number,
     encoding: r.encoding as Encoding,
     fileName: r.file_name as string,
-    counts: { bodies: r.bodies as number, contacts: r.contacts as number, rank: r.rank_ as number, freedoms: r.freedoms as number, redundancies: r.redundancies as number },
+    counts: {
+      bodies: r.bodies as number,
+      contacts: r.contacts as number,
+      rank: r.rank_ as number,
+      freedoms: r.freedoms as number,
+      redundancies: r.redundancies as number,
+    },
     conditioning: r.conditioning as number,
     uploadedBy: r.uploader as string,
     createdAt: iso(r.created_at),
@@ -50,7 +53,26 @@ function revisionQuery() {
     .leftJoin("releases as r", "r.revision_id", "v.id")
     .leftJoin("users as rq", "rq.id", "r.requested_by")
     .leftJoin("users as ap", "ap.id", "r.approved_by")
-    .select("v.id", "v.layout_id", "v.number", "v.encoding", "v.file_name", "v.bodies", "v.contacts", "v.rank_", "v.freedoms", "v.redundancies", "v.conditioning", "v.overrides", "v.created_at", "u.name as uploader", "r.requested_at", "r.approved_at", "rq.name as requester", "ap.name as approver");
+    .select(
+      "v.id",
+      "v.layout_id",
+      "v.number",
+      "v.encoding",
+      "v.file_name",
+      "v.bodies",
+      "v.contacts",
+      "v.rank_",
+      "v.freedoms",
+      "v.redundancies",
+      "v.conditioning",
+      "v.overrides",
+      "v.created_at",
+      "u.name as uploader",
+      "r.requested_at",
+      "r.approved_at",
+      "rq.name as requester",
+      "ap.name as approver",
+    );
 }
 
 /** Revisions of a layout, oldest first. */
@@ -91,7 +113,14 @@ export async function getRevision(_user: SessionUser, revisionId: number): Promi
 export async function recordRefusedUpload(user: SessionUser, layoutId: number, fileName: string, size: number, errors: LayoutError[]): Promise<void> {
   await transaction(async (trx) => {
     await lockLayout(trx, layoutId, "share");
-    await trx("upload_attempts").insert({ layout_id: layoutId, user_id: user.id, file_name: fileName.slice(0, 255), size_bytes: size, accepted: false, errors: JSON.stringify(errors.slice(0, 200)) });
+    await trx("upload_attempts").insert({
+      layout_id: layoutId,
+      user_id: user.id,
+      file_name: fileName.slice(0, 255),
+      size_bytes: size,
+      accepted: false,
+      errors: JSON.stringify(errors.slice(0, 200)),
+    });
     await recordEvent(trx, { layoutId, kind: "upload-refused", actorId: user.id, detail: { fileName, errors: errors.length } });
   });
 }
@@ -137,7 +166,16 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
     for (const f of input.report.findings) {
       let t = byFp.get(f.fingerprint);
       if (!t) {
-        const [threadId] = await trx("threads").insert({ layout_id: layoutId, fingerprint: f.fingerprint, fingerprint_hash: createHash("sha256").update(f.fingerprint).digest("hex"), rule: f.rule, severity: f.severity, title: f.title.slice(0, 400), status: "open", last_revision_id: revisionId });
+        const [threadId] = await trx("threads").insert({
+          layout_id: layoutId,
+          fingerprint: f.fingerprint,
+          fingerprint_hash: createHash("sha256").update(f.fingerprint).digest("hex"),
+          rule: f.rule,
+          severity: f.severity,
+          title: f.title.slice(0, 400),
+          status: "open",
+          last_revision_id: revisionId,
+        });
         t = { id: threadId, status: "open" };
         byFp.set(f.fingerprint, t);
         await recordEvent(trx, { layoutId, kind: "open", actorId: null, threadId, revisionId, detail: { title: f.title } });
@@ -145,8 +183,21 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
         const reappeared = t.status === "resolved";
         await trx("threads")
           .where({ id: t.id })
-          .update({ severity: f.severity, title: f.title.slice(0, 400), last_revision_id: revisionId, ...(reappeared ? { status: "reopened", version: trx.raw("version + 1"), updated_at: trx.fn.now(3) } : {}) });
-        if (reappeared) await recordEvent(trx, { layoutId, kind: "reopen", actorId: null, threadId: t.id as number, revisionId, detail: { reason: `reappeared in revision ${number}` } });
+          .update({
+            severity: f.severity,
+            title: f.title.slice(0, 400),
+            last_revision_id: revisionId,
+            ...(reappeared ? { status: "reopened", version: trx.raw("version + 1"), updated_at: trx.fn.now(3) } : {}),
+          });
+        if (reappeared)
+          await recordEvent(trx, {
+            layoutId,
+            kind: "reopen",
+            actorId: null,
+            threadId: t.id as number,
+            revisionId,
+            detail: { reason: `reappeared in revision ${number}` },
+          });
       }
       seen.add(t.id as number);
       await trx("findings").insert({
@@ -162,17 +213,38 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
     }
     for (const t of threads) {
       if (seen.has(t.id as number) || t.status === "resolved") continue;
-      await trx("threads").where({ id: t.id }).update({ status: "resolved", version: trx.raw("version + 1"), updated_at: trx.fn.now(3) });
-      await recordEvent(trx, { layoutId, kind: "resolve", actorId: null, threadId: t.id as number, revisionId, detail: { reason: `not found in revision ${number}` } });
+      await trx("threads")
+        .where({ id: t.id })
+        .update({ status: "resolved", version: trx.raw("version + 1"), updated_at: trx.fn.now(3) });
+      await recordEvent(trx, {
+        layoutId,
+        kind: "resolve",
+        actorId: null,
+        threadId: t.id as number,
+        revisionId,
+        detail: { reason: `not found in revision ${number}` },
+      });
     }
-    await trx("upload_attempts").insert({ layout_id: layoutId, user_id: user.id, file_name: input.fileName.slice(0, 255), size_bytes: Buffer.byteLength(input.raw), accepted: true, revision_id: revisionId });
-    await recordEvent(trx, { layoutId, kind: "upload", actorId: user.id, revisionId, detail: { number, fileName: input.fileName, findings: input.report.findings.length } });
+    await trx("upload_attempts").insert({
+      layout_id: layoutId,
+      user_id: user.id,
+      file_name: input.fileName.slice(0, 255),
+      size_bytes: Buffer.byteLength(input.raw),
+      accepted: true,
+      revision_id: revisionId,
+    });
+    await recordEvent(trx, {
+      layoutId,
+      kind: "upload",
+      actorId: user.id,
+      revisionId,
+      detail: { number, fileName: input.fileName, findings: input.report.findings.length },
+    });
     return revisionId as number;
   });
   const row = await revisionQuery().where("v.id", id).first();
   return toSummary(row);
 }
-
 
 /** Two findings of one thread read the same: severity, title and body (with its numbers) alike. */
 const sameFinding = (a: FindingRowDto, b: FindingRowDto) => a.severity === b.severity && a.title === b.title && a.body === b.body;

@@ -14,22 +14,31 @@ export type { ThreadStatus, CommentDto, ThreadDto } from "@/lib/contracts/thread
 export { commentSchema, statusSchema } from "@/lib/contracts/threads";
 
 /** Who follows a thread: the layout's owner, the project's checker and everyone who commented on it. */
-export async function threadFollowers(threadId: number): Promise<{ owner: number; checker: number | null; commenters: number[]; layoutName: string; title: string }> {
-  const t = await db()("threads as t").join("layouts as l", "l.id", "t.layout_id").join("projects as p", "p.id", "l.project_id").where("t.id", threadId).select("l.created_by", "p.checker_id", "l.name", "t.title").first();
+export async function threadFollowers(
+  threadId: number,
+): Promise<{ owner: number; checker: number | null; commenters: number[]; layoutName: string; title: string }> {
+  const t = await db()("threads as t")
+    .join("layouts as l", "l.id", "t.layout_id")
+    .join("projects as p", "p.id", "l.project_id")
+    .where("t.id", threadId)
+    .select("l.created_by", "p.checker_id", "l.name", "t.title")
+    .first();
   const commenters = (await db()("comments").where({ thread_id: threadId }).distinct("author_id")).map((r: { author_id: number }) => r.author_id);
   return { owner: t.created_by, checker: t.checker_id ?? null, commenters, layoutName: t.name, title: t.title };
 }
-
-
-
-
 
 type Row = Record<string, unknown>;
 
 /** When a project has an assigned checker, only that checker decides (waive, reopen, approve). */
 export async function requireProjectChecker(trx: Knex | Knex.Transaction, layoutId: number, user: SessionUser): Promise<void> {
-  const p = await trx("layouts as l").join("projects as p", "p.id", "l.project_id").leftJoin("users as c", "c.id", "p.checker_id").where("l.id", layoutId).select("p.checker_id", "c.name").first();
-  if (p?.checker_id && p.checker_id !== user.id) throw forbidden(`${p.name} is the checker of this project; only the assigned checker decides on its findings and releases.`);
+  const p = await trx("layouts as l")
+    .join("projects as p", "p.id", "l.project_id")
+    .leftJoin("users as c", "c.id", "p.checker_id")
+    .where("l.id", layoutId)
+    .select("p.checker_id", "c.name")
+    .first();
+  if (p?.checker_id && p.checker_id !== user.id)
+    throw forbidden(`${p.name} is the checker of this project; only the assigned checker decides on its findings and releases.`);
 }
 
 /** True when the layout's newest revision has been released (then it is read-only). */
@@ -49,8 +58,19 @@ async function layoutOfThread(threadId: number): Promise<number> {
 
 /** Comments matching `where` (a thread's, or one by id), oldest first, each with its edit history. */
 async function readComments(user: SessionUser, where: Record<string, number>): Promise<CommentDto[]> {
-  const rows: Row[] = await db()("comments as c").join("users as u", "u.id", "c.author_id").where(where).select("c.*", "u.name", "u.role").orderBy("c.id", "asc");
-  const edits: Row[] = rows.length ? await db()("comment_edits").whereIn("comment_id", rows.map((c) => c.id as number)).orderBy("id", "asc") : [];
+  const rows: Row[] = await db()("comments as c")
+    .join("users as u", "u.id", "c.author_id")
+    .where(where)
+    .select("c.*", "u.name", "u.role")
+    .orderBy("c.id", "asc");
+  const edits: Row[] = rows.length
+    ? await db()("comment_edits")
+        .whereIn(
+          "comment_id",
+          rows.map((c) => c.id as number),
+        )
+        .orderBy("id", "asc")
+    : [];
   const history = new Map<number, { body: string; replacedAt: string }[]>();
   for (const e of edits) {
     const list = history.get(e.comment_id as number) ?? [];
@@ -78,7 +98,11 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
     .select("t.*", "l.name as layout_name", "l.project_id", "p.name as project_name", "w.name as waiver_name")
     .first();
   if (!t) throw notFound("That finding");
-  const appearances = await db()("findings as f").join("revisions as v", "v.id", "f.revision_id").where("f.thread_id", threadId).select("f.*", "v.number").orderBy("v.number", "asc");
+  const appearances = await db()("findings as f")
+    .join("revisions as v", "v.id", "f.revision_id")
+    .where("f.thread_id", threadId)
+    .select("f.*", "v.number")
+    .orderBy("v.number", "asc");
   const comments = await readComments(user, { "c.thread_id": threadId });
   return {
     id: t.id as number,
@@ -95,7 +119,14 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
     waivedBy: (t.waiver_name as string | null) ?? null,
     version: t.version as number,
     readOnly: await latestReleased(db(), t.layout_id as number),
-    appearances: appearances.map((f: Row) => ({ revisionId: f.revision_id as number, revisionNumber: f.number as number, findingId: f.id as number, body: f.body as string, contacts: JSON.parse(f.contacts as string), loadCase: (f.load_case as string | null) ?? null })),
+    appearances: appearances.map((f: Row) => ({
+      revisionId: f.revision_id as number,
+      revisionNumber: f.number as number,
+      findingId: f.id as number,
+      body: f.body as string,
+      contacts: JSON.parse(f.contacts as string),
+      loadCase: (f.load_case as string | null) ?? null,
+    })),
     comments,
     history: await listEvents({ threadId }),
   };
@@ -110,15 +141,20 @@ export async function changeStatus(user: SessionUser, threadId: number, input: z
     const t = await trx("threads").where({ id: threadId }).forUpdate().first();
     if (!t) throw notFound("That finding");
     await requireProjectChecker(trx, t.layout_id, user);
-    if (t.version !== input.version) throw conflict("Someone changed this finding while you were looking at it. Reload to see their change; nothing was overwritten.");
+    if (t.version !== input.version)
+      throw conflict("Someone changed this finding while you were looking at it. Reload to see their change; nothing was overwritten.");
     if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only. Upload a new revision to change the review.");
     if (input.action === "waive") {
       if (t.status === "resolved") throw new AppError(409, "A resolved finding needs no waiver.");
       if (t.status === "waived") throw new AppError(409, "This finding is already waived.");
-      await trx("threads").where({ id: threadId }).update({ status: "waived", waiver_reason: input.reason, waived_by: user.id, version: t.version + 1, updated_at: trx.fn.now(3) });
+      await trx("threads")
+        .where({ id: threadId })
+        .update({ status: "waived", waiver_reason: input.reason, waived_by: user.id, version: t.version + 1, updated_at: trx.fn.now(3) });
     } else {
       if (t.status !== "waived" && t.status !== "resolved") throw new AppError(409, "Only a waived or resolved finding can be reopened.");
-      await trx("threads").where({ id: threadId }).update({ status: "reopened", waiver_reason: null, waived_by: null, version: t.version + 1, updated_at: trx.fn.now(3) });
+      await trx("threads")
+        .where({ id: threadId })
+        .update({ status: "reopened", waiver_reason: null, waived_by: null, version: t.version + 1, updated_at: trx.fn.now(3) });
     }
     await recordEvent(trx, { layoutId: t.layout_id, kind: input.action, actorId: user.id, threadId, detail: { reason: input.reason, from: t.status } });
   });
@@ -130,7 +166,9 @@ export async function mentionedUsers(body: string): Promise<{ id: number; name: 
   const handles = [...new Set([...body.matchAll(/(^|[^\w@])@([a-z0-9._-]{2,40})/gi)].map((m) => m[2].toLowerCase()))];
   if (!handles.length) return [];
   const users: Row[] = await db()("users").where({ active: true }).select("id", "name", "email");
-  return users.filter((u) => handles.includes(String(u.email).split("@")[0].toLowerCase())).map((u) => ({ id: u.id as number, name: u.name as string, email: u.email as string }));
+  return users
+    .filter((u) => handles.includes(String(u.email).split("@")[0].toLowerCase()))
+    .map((u) => ({ id: u.id as number, name: u.name as string, email: u.email as string }));
 }
 
 /** Adds a comment (designers and checkers); records mentions in the history. Notifications: lib/review. */
@@ -163,7 +201,9 @@ export async function editComment(user: SessionUser, commentId: number, body: st
     if (await latestReleased(trx, t.layout_id)) throw conflict("The newest revision is released and read-only.");
     if (c.body === body) return c.thread_id as number;
     await trx("comment_edits").insert({ comment_id: commentId, body: c.body });
-    await trx("comments").where({ id: commentId }).update({ body, edited_at: trx.fn.now(3) });
+    await trx("comments")
+      .where({ id: commentId })
+      .update({ body, edited_at: trx.fn.now(3) });
     await recordEvent(trx, { layoutId: t.layout_id, kind: "comment-edit", actorId: user.id, threadId: c.thread_id, detail: { commentId } });
     return c.thread_id as number;
   });
@@ -171,11 +211,25 @@ export async function editComment(user: SessionUser, commentId: number, body: st
 }
 
 /** Threads of a layout with their current state (for the findings table). */
-export async function listThreads(_user: SessionUser, layoutId: number): Promise<{ id: number; rule: string; severity: string; title: string; status: ThreadStatus; comments: number; lastRevision: number | null; version: number }[]> {
+export async function listThreads(
+  _user: SessionUser,
+  layoutId: number,
+): Promise<
+  { id: number; rule: string; severity: string; title: string; status: ThreadStatus; comments: number; lastRevision: number | null; version: number }[]
+> {
   const rows: Row[] = await db()("threads as t")
     .leftJoin("revisions as v", "v.id", "t.last_revision_id")
     .where("t.layout_id", layoutId)
     .select("t.*", "v.number as last_number", db().raw("(select count(*) from comments c where c.thread_id = t.id) as comment_count"))
     .orderBy("t.id", "asc");
-  return rows.map((r) => ({ id: r.id as number, rule: r.rule as string, severity: r.severity as string, title: r.title as string, status: r.status as ThreadStatus, comments: Number(r.comment_count), lastRevision: (r.last_number as number | null) ?? null, version: r.version as number }));
+  return rows.map((r) => ({
+    id: r.id as number,
+    rule: r.rule as string,
+    severity: r.severity as string,
+    title: r.title as string,
+    status: r.status as ThreadStatus,
+    comments: Number(r.comment_count),
+    lastRevision: (r.last_number as number | null) ?? null,
+    version: r.version as number,
+  }));
 }

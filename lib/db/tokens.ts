@@ -7,7 +7,9 @@ import { db } from "./knex";
 import { notFound } from "@/lib/errors";
 import type { Role } from "@/lib/roles";
 
-export const tokenInputSchema = z.object({ name: z.string().trim().min(2, "Give the token a name of at least 2 characters.").max(100, "A name is at most 100 characters.") });
+export const tokenInputSchema = z.object({
+  name: z.string().trim().min(2, "Give the token a name of at least 2 characters.").max(100, "A name is at most 100 characters."),
+});
 
 export interface TokenDto {
   id: number;
@@ -32,7 +34,14 @@ export function forgetTokens(): void {
 }
 
 function toDto(r: Record<string, unknown>): TokenDto {
-  return { id: r.id as number, name: r.name as string, prefix: r.prefix as string, createdAt: iso(r.created_at), lastUsedAt: isoOrNull(r.last_used_at), revokedAt: isoOrNull(r.revoked_at) };
+  return {
+    id: r.id as number,
+    name: r.name as string,
+    prefix: r.prefix as string,
+    createdAt: iso(r.created_at),
+    lastUsedAt: isoOrNull(r.last_used_at),
+    revokedAt: isoOrNull(r.revoked_at),
+  };
 }
 
 /** Creates a token for the user; the plain token is returned only here. */
@@ -50,7 +59,10 @@ export async function listTokens(user: { id: number }): Promise<TokenDto[]> {
 /** Revokes one of the user's tokens. */
 export async function revokeToken(user: { id: number }, id: number): Promise<void> {
   const row = await db()("api_tokens").where({ id, user_id: user.id }).first();
-  const n = await db()("api_tokens").where({ id, user_id: user.id }).whereNull("revoked_at").update({ revoked_at: db().fn.now(3) });
+  const n = await db()("api_tokens")
+    .where({ id, user_id: user.id })
+    .whereNull("revoked_at")
+    .update({ revoked_at: db().fn.now(3) });
   if (n !== 1) throw notFound("That active token");
   verified.delete(row.token_hash);
 }
@@ -61,7 +73,13 @@ export async function authenticateToken(token: string): Promise<{ id: number; na
   const h = hash(token);
   const hit = verified.get(h);
   if (hit && hit.until > Date.now()) return hit.user;
-  const row = await db()("api_tokens as t").join("users as u", "u.id", "t.user_id").where("t.token_hash", h).whereNull("t.revoked_at").where("u.active", true).select("t.id", "u.id as uid", "u.name", "u.email", "u.role").first();
+  const row = await db()("api_tokens as t")
+    .join("users as u", "u.id", "t.user_id")
+    .where("t.token_hash", h)
+    .whereNull("t.revoked_at")
+    .where("u.active", true)
+    .select("t.id", "u.id as uid", "u.name", "u.email", "u.role")
+    .first();
   if (!row) return null;
   // last use to the minute: one write a minute per token, not one per request (busy scripts share a token)
   await db()("api_tokens")

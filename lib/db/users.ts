@@ -25,7 +25,6 @@ interface UserRow {
   created_at: Date;
 }
 
-
 function toDto(row: UserRow): UserDto {
   return { id: row.id, email: row.email, name: row.name, role: row.role };
 }
@@ -58,9 +57,6 @@ export async function listMentionableUsers(): Promise<{ name: string; handle: st
   return rows.map((r) => ({ name: r.name, handle: r.email.split("@")[0], role: r.role }));
 }
 
-
-
-
 const adminDto = (r: UserRow): AdminUserDto => ({ ...toDto(r), active: !!r.active, createdAt: iso(r.created_at) });
 
 /** Every account, active or not (admins only). */
@@ -91,22 +87,41 @@ export async function changeUser(user: SessionUser, id: number, change: z.infer<
   if (!allowed(user.role, "manageUsers")) throw forbidden("Only administrators manage users.");
   const row = await db()<UserRow>("users").where({ id }).first();
   if (!row) throw notFound("That user");
-  if (id === user.id && (change.active === false || (change.role && change.role !== "admin"))) throw conflict("You cannot deactivate yourself or give up your own admin role; ask another administrator.");
+  if (id === user.id && (change.active === false || (change.role && change.role !== "admin")))
+    throw conflict("You cannot deactivate yourself or give up your own admin role; ask another administrator.");
   await transaction(async (trx) => {
     if (change.role && change.role !== row.role) {
       await trx("users").where({ id }).update({ role: change.role });
-      await recordAudit(trx, { subject: "user", subjectId: id, kind: "role-changed", actorId: user.id, detail: { name: row.name, from: row.role, to: change.role } });
+      await recordAudit(trx, {
+        subject: "user",
+        subjectId: id,
+        kind: "role-changed",
+        actorId: user.id,
+        detail: { name: row.name, from: row.role, to: change.role },
+      });
       // a project may not keep a checker who is no longer one
       if (row.role === "checker") {
         for (const p of await trx("projects").where({ checker_id: id }).select("id")) {
           await trx("projects").where({ id: p.id }).update({ checker_id: null });
-          await recordAudit(trx, { subject: "project", subjectId: p.id, kind: "checker-assigned", actorId: user.id, detail: { from: row.name, to: null, why: "no longer a checker" } });
+          await recordAudit(trx, {
+            subject: "project",
+            subjectId: p.id,
+            kind: "checker-assigned",
+            actorId: user.id,
+            detail: { from: row.name, to: null, why: "no longer a checker" },
+          });
         }
       }
     }
     if (change.active !== undefined && change.active !== !!row.active) {
       await trx("users").where({ id }).update({ active: change.active });
-      await recordAudit(trx, { subject: "user", subjectId: id, kind: change.active ? "user-reactivated" : "user-deactivated", actorId: user.id, detail: { name: row.name } });
+      await recordAudit(trx, {
+        subject: "user",
+        subjectId: id,
+        kind: change.active ? "user-reactivated" : "user-deactivated",
+        actorId: user.id,
+        detail: { name: row.name },
+      });
     }
   });
   forgetTokens();

@@ -30,7 +30,10 @@ export function decodeText(bytes: Uint8Array): string | null {
 /** Parses a layout file's bytes. */
 export function parseLayoutBytes(bytes: Uint8Array, options: CsvOptions & { encoding?: Encoding; fileName?: string } = {}): ParseResult {
   if (bytes.byteLength > MAX_FILE_BYTES) {
-    return { ok: false, errors: [{ location: "file", message: `the file is ${(bytes.byteLength / 1048576).toFixed(1)} MB; the limit is ${MAX_FILE_BYTES / 1048576} MB` }] };
+    return {
+      ok: false,
+      errors: [{ location: "file", message: `the file is ${(bytes.byteLength / 1048576).toFixed(1)} MB; the limit is ${MAX_FILE_BYTES / 1048576} MB` }],
+    };
   }
   const text = decodeText(bytes);
   if (text === null) return { ok: false, errors: [{ location: "file", message: "the file is not UTF-8 text (binary data or another encoding)" }] };

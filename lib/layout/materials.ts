@@ -23,7 +23,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.3,
     allowableContactPressureMPa: 4200,
     expansionPerK: 11.9e-6,
-    source: "E, ν: bearing handbooks 200–210 GPa / 0.3 (value from memory); p0 4200 MPa: ISO 76 static load rating basis for ball bearings; α 11.9e-6/K near 20 °C: bearing-steel handbook range 11–12.5e-6/K (value from memory)",
+    source:
+      "E, ν: bearing handbooks 200–210 GPa / 0.3 (value from memory); p0 4200 MPa: ISO 76 static load rating basis for ball bearings; α 11.9e-6/K near 20 °C: bearing-steel handbook range 11–12.5e-6/K (value from memory)",
   },
   {
     id: "stainless-martensitic",
@@ -32,7 +33,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.28,
     allowableContactPressureMPa: 3900,
     expansionPerK: 10.2e-6,
-    source: "E, ν: steel handbooks (value from memory); p0 ≈ 3900 MPa from a vendor's ≈20 % lower static capacity than bearing steel with p0 ∝ C0^(1/3); α 10.2e-6/K near 20 °C: martensitic stainless ≈ 10e-6/K (value from memory)",
+    source:
+      "E, ν: steel handbooks (value from memory); p0 ≈ 3900 MPa from a vendor's ≈20 % lower static capacity than bearing steel with p0 ∝ C0^(1/3); α 10.2e-6/K near 20 °C: martensitic stainless ≈ 10e-6/K (value from memory)",
   },
   {
     id: "silicon-nitride",
@@ -41,7 +43,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.27,
     allowableContactPressureMPa: 4200,
     expansionPerK: 3.2e-6,
-    source: "E, ν: 300–320 GPa / 0.26–0.27, handbooks (value from memory); p0: ISO 20056 rates ceramic balls somewhat above ISO 76, so the ISO 76 figure is kept (common practice, conservative); α 3.2e-6/K: silicon nitride ≈ 3e-6/K (value from memory)",
+    source:
+      "E, ν: 300–320 GPa / 0.26–0.27, handbooks (value from memory); p0: ISO 20056 rates ceramic balls somewhat above ISO 76, so the ISO 76 figure is kept (common practice, conservative); α 3.2e-6/K: silicon nitride ≈ 3e-6/K (value from memory)",
   },
   {
     id: "cemented-carbide",
@@ -50,7 +53,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.22,
     allowableContactPressureMPa: 4500,
     expansionPerK: 5.5e-6,
-    source: "E, ν: 600–650 GPa / 0.22, handbooks (value from memory); p0: compressive strength well above 4.5 GPa, figure kept conservative (common practice); α 5.5e-6/K: cemented carbide 5–6e-6/K (value from memory)",
+    source:
+      "E, ν: 600–650 GPa / 0.22, handbooks (value from memory); p0: compressive strength well above 4.5 GPa, figure kept conservative (common practice); α 5.5e-6/K: cemented carbide 5–6e-6/K (value from memory)",
   },
   {
     id: "alumina",
@@ -59,7 +63,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.22,
     allowableContactPressureMPa: 2000,
     expansionPerK: 7.5e-6,
-    source: "E, ν: technical-ceramic data sheets (value from memory); p0 2000 MPa: brittle material, kept low against ring cracking (common practice); α 7.5e-6/K: alumina 7–8e-6/K (value from memory)",
+    source:
+      "E, ν: technical-ceramic data sheets (value from memory); p0 2000 MPa: brittle material, kept low against ring cracking (common practice); α 7.5e-6/K: alumina 7–8e-6/K (value from memory)",
   },
   {
     id: "fused-silica",
@@ -68,7 +73,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.16,
     allowableContactPressureMPa: 500,
     expansionPerK: 0.55e-6,
-    source: "E, ν: optical glass maker's data (value from memory); p0 500 MPa: glass fails in tension at the contact edge, figure kept low (common practice); α 0.55e-6/K: fused silica ≈ 0.55e-6/K (value from memory)",
+    source:
+      "E, ν: optical glass maker's data (value from memory); p0 500 MPa: glass fails in tension at the contact edge, figure kept low (common practice); α 0.55e-6/K: fused silica ≈ 0.55e-6/K (value from memory)",
   },
   {
     id: "aluminium-alloy",
@@ -77,7 +83,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.33,
     allowableContactPressureMPa: 440,
     expansionPerK: 23.6e-6,
-    source: "E, ν, yield 276 MPa: aluminium handbooks (value from memory); p0 = 1.6 Y, onset of yield under a sphere, Johnson, Contact Mechanics §6.2 (value from memory); α 23.6e-6/K: 6061 aluminium ≈ 23–24e-6/K (value from memory)",
+    source:
+      "E, ν, yield 276 MPa: aluminium handbooks (value from memory); p0 = 1.6 Y, onset of yield under a sphere, Johnson, Contact Mechanics §6.2 (value from memory); α 23.6e-6/K: 6061 aluminium ≈ 23–24e-6/K (value from memory)",
   },
   {
     id: "low-expansion-alloy",
@@ -86,7 +93,8 @@ export const builtinMaterials: BuiltinMaterial[] = [
     poissonRatio: 0.26,
     allowableContactPressureMPa: 440,
     expansionPerK: 1.3e-6,
-    source: "E, ν, yield ≈ 276 MPa: alloy maker's data (value from memory); p0 = 1.6 Y, Johnson, Contact Mechanics §6.2 (value from memory); α 1.3e-6/K: iron–36 % nickel 1.2–1.6e-6/K annealed (value from memory)",
+    source:
+      "E, ν, yield ≈ 276 MPa: alloy maker's data (value from memory); p0 = 1.6 Y, Johnson, Contact Mechanics §6.2 (value from memory); α 1.3e-6/K: iron–36 % nickel 1.2–1.6e-6/K annealed (value from memory)",
   },
 ];
 

@@ -132,9 +132,7 @@ export interface LayoutError {
   message: string;
 }
 
-export type ParseResult =
-  | { ok: true; layout: Layout; warnings: string[] }
-  | { ok: false; errors: LayoutError[] };
+export type ParseResult = { ok: true; layout: Layout; warnings: string[] } | { ok: false; errors: LayoutError[] };
 
 export const GROUND = "ground";
 export const FORMAT = "mount-layout/1";

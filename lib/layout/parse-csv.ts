@@ -26,7 +26,10 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
     records = parse(text.replace(/^\uFEFF/, ""), { info: true, skip_empty_lines: true, trim: true, relax_quotes: false }) as unknown as typeof records;
   } catch (e) {
     const err = e as Error & { lines?: number; code?: string };
-    const detail = err.code === "CSV_RECORD_INCONSISTENT_FIELDS_LENGTH" ? "this row has a different number of columns than the header" : err.message.replace(/^Invalid Record Length: /, "");
+    const detail =
+      err.code === "CSV_RECORD_INCONSISTENT_FIELDS_LENGTH"
+        ? "this row has a different number of columns than the header"
+        : err.message.replace(/^Invalid Record Length: /, "");
     return { ok: false, errors: [{ location: `line ${err.lines ?? "?"}`, message: detail }] };
   }
   if (records.length === 0) return { ok: false, errors: [{ location: "line 1", message: "the file is empty; a header row is required" }] };
@@ -51,7 +54,7 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
   const where = new Map<string, string>();
   rows.forEach(({ record, info }, i) => {
     const line = info.lines;
-    const cell = (name: string) => (col(name) >= 0 ? record[col(name)] ?? "" : "");
+    const cell = (name: string) => (col(name) >= 0 ? (record[col(name)] ?? "") : "");
     const loc = (name: string) => `line ${line}, column ${col(name) + 1} (${name})`;
     const c: Record<string, unknown> = {};
     where.set(`/contacts/${i}`, `line ${line}`);
@@ -80,7 +83,10 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
       point: [c.x, c.y, c.z],
       normal: [c.nx, c.ny, c.nz],
     });
-    for (const [k, cols] of [["point", ["x", "y", "z"]], ["normal", ["nx", "ny", "nz"]]] as const) {
+    for (const [k, cols] of [
+      ["point", ["x", "y", "z"]],
+      ["normal", ["nx", "ny", "nz"]],
+    ] as const) {
       where.set(`/contacts/${i}/${k}`, `line ${line}, columns ${col(cols[0]) + 1}–${col(cols[2]) + 1} (${cols.join(", ")})`);
       cols.forEach((n, j) => where.set(`/contacts/${i}/${k}/${j}`, loc(n)));
     }

@@ -99,7 +99,12 @@ export function parseXmlLayout(text: string, library: Material[] = []): ParseRes
   if (decl) {
     return {
       ok: false,
-      errors: [{ location: `line ${lineOf(text, decl.index)}`, message: `${decl[1].toUpperCase()} declarations are not allowed in a layout file (entities are never expanded)` }],
+      errors: [
+        {
+          location: `line ${lineOf(text, decl.index)}`,
+          message: `${decl[1].toUpperCase()} declarations are not allowed in a layout file (entities are never expanded)`,
+        },
+      ],
     };
   }
   let valid: ReturnType<typeof XMLValidator.validate>;
@@ -109,7 +114,10 @@ export function parseXmlLayout(text: string, library: Material[] = []): ParseRes
     return { ok: false, errors: [{ location: "file", message: `the file is not well-formed XML: ${(e as Error).message}` }] };
   }
   if (valid !== true) {
-    return { ok: false, errors: [{ location: `line ${valid.err.line}, column ${valid.err.col}`, message: `the file is not well-formed XML: ${valid.err.msg}` }] };
+    return {
+      ok: false,
+      errors: [{ location: `line ${valid.err.line}, column ${valid.err.col}`, message: `the file is not well-formed XML: ${valid.err.msg}` }],
+    };
   }
   const parser = new XMLParser({
     ignoreAttributes: false,
@@ -191,7 +199,10 @@ export function parseXmlLayout(text: string, library: Material[] = []): ParseRes
         locations.set(`${ptr}/hertz`, hPath);
         readAttrs(sub, hPath, `${ptr}/hertz`, hertz);
         const radii: unknown[] = [];
-        for (const [attr, idx] of [["body-radii", 0], ["on-radii", 1]] as const) {
+        for (const [attr, idx] of [
+          ["body-radii", 0],
+          ["on-radii", 1],
+        ] as const) {
           locations.set(`${ptr}/hertz/radii/${idx}`, `${hPath} @${attr}`);
           const r = sub.attrs[attr] === undefined ? undefined : readList(sub.attrs[attr], 2, true);
           if (typeof r === "string") errors.push({ location: `${hPath} @${attr}`, message: `${attr}: ${r}` });

@@ -102,12 +102,24 @@ export const rawLayoutSchema = z.object({
   gravity: vec3.default([0, 0, -9.80665]),
   tolerance: positive.refine((v) => v < 1, { error: "must be below 1" }).default(1e-6),
   intendedFreedoms: z.number({ error: "must be a number" }).int({ error: "must be a whole number" }).min(0, { error: "must not be negative" }).default(0),
-  bodies: z.array(bodySchema, { error: "must be a list of bodies" }).min(1, { error: "must declare at least one body" }).max(MAX_BODIES, { error: `has more than ${MAX_BODIES} bodies` }),
+  bodies: z
+    .array(bodySchema, { error: "must be a list of bodies" })
+    .min(1, { error: "must declare at least one body" })
+    .max(MAX_BODIES, { error: `has more than ${MAX_BODIES} bodies` }),
   materials: z.array(materialSchema).max(200, { error: "has more than 200 materials" }).default([]),
   contacts: z.array(contactSchema, { error: "must be a list of contacts" }).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} contacts` }),
-  flexures: z.array(flexureSchema, { error: "must be a list of flexures" }).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} flexures` }).default([]),
-  loads: z.array(loadSchema).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} loads` }).default([]),
-  points: z.array(pointSchema).max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} points` }).default([]),
+  flexures: z
+    .array(flexureSchema, { error: "must be a list of flexures" })
+    .max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} flexures` })
+    .default([]),
+  loads: z
+    .array(loadSchema)
+    .max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} loads` })
+    .default([]),
+  points: z
+    .array(pointSchema)
+    .max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} points` })
+    .default([]),
   loadCases: z
     .array(z.object({ id: identifier, gravity: vec3.optional(), loads: z.array(identifier).optional() }))
     .max(100, { error: "has more than 100 load cases" })
@@ -134,7 +146,8 @@ function unknownFieldWarnings(raw: unknown, locate: (ptr: string) => string): st
   if (!raw || typeof raw !== "object" || Array.isArray(raw)) return out;
   const check = (obj: unknown, known: string[], ptr: string) => {
     if (!obj || typeof obj !== "object" || Array.isArray(obj)) return;
-    for (const key of Object.keys(obj)) if (!known.includes(key) && out.length < 50) out.push(`${locate(`${ptr}/${key}`)}: unknown field "${key}" was ignored (check the spelling)`);
+    for (const key of Object.keys(obj))
+      if (!known.includes(key) && out.length < 50) out.push(`${locate(`${ptr}/${key}`)}: unknown field "${key}" was ignored (check the spelling)`);
   };
   const r = raw as Record<string, unknown>;
   check(r, Object.keys(rawLayoutSchema.shape), "");
@@ -245,7 +258,8 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string, library: Ma
     }
   });
   layout.bodies.forEach((b, i) => {
-    if (b.material !== undefined && !knownMaterial(b.material)) err(`/bodies/${i}/material`, `material '${b.material}' is neither built in nor declared in materials`);
+    if (b.material !== undefined && !knownMaterial(b.material))
+      err(`/bodies/${i}/material`, `material '${b.material}' is neither built in nor declared in materials`);
   });
   if (layout.groundMaterial !== undefined && !knownMaterial(layout.groundMaterial)) {
     err("/groundMaterial", `material '${layout.groundMaterial}' is neither built in nor declared in materials`);
@@ -259,8 +273,10 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string, library: Ma
     if (f.on !== GROUND && !bodies.has(f.on)) err(`${at}/on`, `body '${f.on}' is not declared`);
     if (f.on === f.body) err(`${at}/on`, `flexure '${f.id}' cannot join body '${f.body}' to itself`);
     if (f.material !== undefined && !knownMaterial(f.material)) err(`${at}/material`, `material '${f.material}' is neither built in nor declared in materials`);
-    if (!(flexureLength(f) > 0)) err(`${at}/${f.kind === "wire" ? "to" : "tip"}`, `flexure '${f.id}' has zero length (${f.kind === "wire" ? "from and to" : "root and tip"} coincide)`);
-    else if (f.kind === "blade" && !bladeFrame(f)) err(`${at}/widthDirection`, `widthDirection of blade '${f.id}' is zero or parallel to its length (tip − root)`);
+    if (!(flexureLength(f) > 0))
+      err(`${at}/${f.kind === "wire" ? "to" : "tip"}`, `flexure '${f.id}' has zero length (${f.kind === "wire" ? "from and to" : "root and tip"} coincide)`);
+    else if (f.kind === "blade" && !bladeFrame(f))
+      err(`${at}/widthDirection`, `widthDirection of blade '${f.id}' is zero or parallel to its length (tip − root)`);
     const ids = f.kind === "wire" ? [f.id] : [f.id, ...flexureRowIds(f)];
     for (const id of ids) {
       if (rowIds.has(id)) err(`${at}/id`, `flexure '${f.id}'${id === f.id ? "" : ` (row ${id})`} collides with the id at ${rowIds.get(id)}`);

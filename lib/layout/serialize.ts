@@ -4,7 +4,10 @@ import type { Layout, Vec3 } from "./model";
 const v3 = (v: Vec3) => v.map((x) => String(x)).join(" ");
 const esc = (s: string) => s.replace(/&/g, "&amp;").replace(/"/g, "&quot;").replace(/</g, "&lt;").replace(/>/g, "&gt;");
 const attrs = (pairs: [string, string | number | undefined][]) =>
-  pairs.filter(([, v]) => v !== undefined).map(([k, v]) => `${k}="${esc(String(v))}"`).join(" ");
+  pairs
+    .filter(([, v]) => v !== undefined)
+    .map(([k, v]) => `${k}="${esc(String(v))}"`)
+    .join(" ");
 
 /** JSON, two-space indented, with short arrays (vectors, radii pairs) kept on one line. */
 export function toJson(layout: Layout): string {
@@ -18,7 +21,11 @@ function pretty(value: unknown, indent: string): string {
   if (Array.isArray(value)) {
     const smallObjects = value.every((v) => v && typeof v === "object" && !Array.isArray(v) && JSON.stringify(v).length < 110);
     if (smallObjects) {
-      const line = (o: Record<string, unknown>) => `{${Object.entries(o).filter(([, v]) => v !== undefined).map(([k, v]) => `${JSON.stringify(k)}: ${pretty(v, inner)}`).join(", ")}}`;
+      const line = (o: Record<string, unknown>) =>
+        `{${Object.entries(o)
+          .filter(([, v]) => v !== undefined)
+          .map(([k, v]) => `${JSON.stringify(k)}: ${pretty(v, inner)}`)
+          .join(", ")}}`;
       return `[\n${value.map((v) => inner + line(v as Record<string, unknown>)).join(",\n")}\n${indent}]`;
     }
     return `[\n${value.map((v) => inner + pretty(v, inner)).join(",\n")}\n${indent}]`;
@@ -44,10 +51,24 @@ export function toXml(layout: Layout): string {
       ["default-scatter", layout.defaultScatter],
     ])}>`,
   );
-  for (const b of layout.bodies) out.push(`  <body ${attrs([["id", b.id], ["mass", b.mass], ["center-of-mass", b.centerOfMass && v3(b.centerOfMass)], ["material", b.material]])}/>`);
+  for (const b of layout.bodies)
+    out.push(
+      `  <body ${attrs([
+        ["id", b.id],
+        ["mass", b.mass],
+        ["center-of-mass", b.centerOfMass && v3(b.centerOfMass)],
+        ["material", b.material],
+      ])}/>`,
+    );
   for (const m of layout.materials)
     out.push(
-      `  <material ${attrs([["id", m.id], ["youngs-modulus-gpa", m.youngsModulusGPa], ["poisson-ratio", m.poissonRatio], ["allowable-contact-pressure-mpa", m.allowableContactPressureMPa], ["expansion-per-k", m.expansionPerK]])}/>`,
+      `  <material ${attrs([
+        ["id", m.id],
+        ["youngs-modulus-gpa", m.youngsModulusGPa],
+        ["poisson-ratio", m.poissonRatio],
+        ["allowable-contact-pressure-mpa", m.allowableContactPressureMPa],
+        ["expansion-per-k", m.expansionPerK],
+      ])}/>`,
     );
   for (const c of layout.contacts) {
     const a = attrs([
@@ -65,20 +86,63 @@ export function toXml(layout: Layout): string {
     else {
       const r = (pair: (number | null)[]) => pair.map((x) => (x === null ? "flat" : String(x))).join(" ");
       out.push(`  <contact ${a}>`);
-      out.push(`    <hertz ${attrs([["body-radii", r(c.hertz.radii[0])], ["on-radii", r(c.hertz.radii[1])], ["angle-deg", c.hertz.angleDeg], ["materials", c.hertz.materials.join(" ")]])}/>`);
+      out.push(
+        `    <hertz ${attrs([
+          ["body-radii", r(c.hertz.radii[0])],
+          ["on-radii", r(c.hertz.radii[1])],
+          ["angle-deg", c.hertz.angleDeg],
+          ["materials", c.hertz.materials.join(" ")],
+        ])}/>`,
+      );
       out.push("  </contact>");
     }
   }
   for (const f of layout.flexures ?? []) {
     const ends: [string, string | number | undefined][] =
       f.kind === "wire"
-        ? [["from", v3(f.from)], ["to", v3(f.to)], ["diameter", f.diameter]]
-        : [["root", v3(f.root)], ["tip", v3(f.tip)], ["width-direction", v3(f.widthDirection)], ["width", f.width], ["thickness", f.thickness]];
-    out.push(`  <flexure ${attrs([["id", f.id], ["kind", f.kind], ["body", f.body], ["on", f.on], ["feature", f.feature], ...ends, ["material", f.material], ["scatter", f.scatter]])}/>`);
+        ? [
+            ["from", v3(f.from)],
+            ["to", v3(f.to)],
+            ["diameter", f.diameter],
+          ]
+        : [
+            ["root", v3(f.root)],
+            ["tip", v3(f.tip)],
+            ["width-direction", v3(f.widthDirection)],
+            ["width", f.width],
+            ["thickness", f.thickness],
+          ];
+    out.push(
+      `  <flexure ${attrs([["id", f.id], ["kind", f.kind], ["body", f.body], ["on", f.on], ["feature", f.feature], ...ends, ["material", f.material], ["scatter", f.scatter]])}/>`,
+    );
   }
-  for (const l of layout.loads) out.push(`  <load ${attrs([["id", l.id], ["body", l.body], ["force", v3(l.force)], ["point", v3(l.point)], ["moment", l.moment && v3(l.moment)]])}/>`);
-  for (const p of layout.points) out.push(`  <point ${attrs([["id", p.id], ["body", p.body], ["at", v3(p.point)], ["allowance", p.allowance]])}/>`);
-  for (const lc of layout.loadCases ?? []) out.push(`  <load-case ${attrs([["id", lc.id], ["gravity", v3(lc.gravity)], ["loads", lc.loads?.join(" ")]])}/>`);
+  for (const l of layout.loads)
+    out.push(
+      `  <load ${attrs([
+        ["id", l.id],
+        ["body", l.body],
+        ["force", v3(l.force)],
+        ["point", v3(l.point)],
+        ["moment", l.moment && v3(l.moment)],
+      ])}/>`,
+    );
+  for (const p of layout.points)
+    out.push(
+      `  <point ${attrs([
+        ["id", p.id],
+        ["body", p.body],
+        ["at", v3(p.point)],
+        ["allowance", p.allowance],
+      ])}/>`,
+    );
+  for (const lc of layout.loadCases ?? [])
+    out.push(
+      `  <load-case ${attrs([
+        ["id", lc.id],
+        ["gravity", v3(lc.gravity)],
+        ["loads", lc.loads?.join(" ")],
+      ])}/>`,
+    );
   out.push("</mount-layout>", "");
   return out.join("\n");
 }
@@ -87,10 +151,32 @@ export function toXml(layout: Layout): string {
 export function toCsv(layout: Layout): string {
   const hasStiffness = layout.contacts.some((c) => c.stiffness !== undefined);
   const hasScatter = layout.contacts.some((c) => c.scatter !== undefined);
-  const header = ["id", "body", "on", "x", "y", "z", "nx", "ny", "nz", "sense", "feature", ...(hasStiffness ? ["stiffness"] : []), ...(hasScatter ? ["scatter"] : [])];
+  const header = [
+    "id",
+    "body",
+    "on",
+    "x",
+    "y",
+    "z",
+    "nx",
+    "ny",
+    "nz",
+    "sense",
+    "feature",
+    ...(hasStiffness ? ["stiffness"] : []),
+    ...(hasScatter ? ["scatter"] : []),
+  ];
   const q = (s: string) => (/[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
   const rows = layout.contacts.map((c) =>
-    [c.id, c.body, c.on, ...c.point.map(String), ...c.normal.map(String), c.sense, c.feature ?? "", ...(hasStiffness ? [c.stiffness === undefined ? "" : String(c.stiffness)] : []),
+    [
+      c.id,
+      c.body,
+      c.on,
+      ...c.point.map(String),
+      ...c.normal.map(String),
+      c.sense,
+      c.feature ?? "",
+      ...(hasStiffness ? [c.stiffness === undefined ? "" : String(c.stiffness)] : []),
       ...(hasScatter ? [c.scatter === undefined ? "" : String(c.scatter)] : []),
     ]
       .map(q)

@@ -15,10 +15,13 @@ export async function capturedMail(limit = 200): Promise<CapturedMail[]> {
   const file = process.env.MAIL_CAPTURE_FILE ?? path.join(process.cwd(), ".data", "mail", "captured.jsonl");
   try {
     const lines = (await readFile(file, "utf8")).split("\n").filter(Boolean);
-    return lines.slice(-limit).reverse().map((l) => {
-      const m = JSON.parse(l);
-      return { receivedAt: m.receivedAt, to: m.to, subject: m.subject, text: m.text };
-    });
+    return lines
+      .slice(-limit)
+      .reverse()
+      .map((l) => {
+        const m = JSON.parse(l);
+        return { receivedAt: m.receivedAt, to: m.to, subject: m.subject, text: m.text };
+      });
   } catch {
     return [];
   }

@@ -5,7 +5,16 @@
  */
 import "server-only";
 import nodemailer from "nodemailer";
-import { dueMails, insertMails, listOutbox, mailRecipients, markFailed, markSent, mutedKinds as mutedKindsOf, setMutedKinds as storeMutedKinds } from "@/lib/db/outbox";
+import {
+  dueMails,
+  insertMails,
+  listOutbox,
+  mailRecipients,
+  markFailed,
+  markSent,
+  mutedKinds as mutedKindsOf,
+  setMutedKinds as storeMutedKinds,
+} from "@/lib/db/outbox";
 
 export { listOutbox };
 
@@ -42,13 +51,13 @@ export async function enqueueMail(recipients: number[], kind: MailKind, subject:
     const users = await mailRecipients(ids, kind);
     const link = appLink(linkPath);
     const rows = users.map((u) => ({
-        user_id: u.id,
-        to_address: u.email,
-        kind,
-        subject: `[Sixfold] ${subject}`.slice(0, 300),
-        text_body: `Hello ${u.name},\n\n${text}\n\nOpen it: ${link}\n\nYou can mute this kind of mail in your Sixfold settings.`,
-        html_body: `<p>Hello ${escapeHtml(u.name)},</p><p>${escapeHtml(text).replace(/\n/g, "<br>")}</p><p><a href="${escapeHtml(link)}">Open it in Sixfold</a></p><p style="color:#777">You can mute this kind of mail in your Sixfold settings.</p>`,
-      }));
+      user_id: u.id,
+      to_address: u.email,
+      kind,
+      subject: `[Sixfold] ${subject}`.slice(0, 300),
+      text_body: `Hello ${u.name},\n\n${text}\n\nOpen it: ${link}\n\nYou can mute this kind of mail in your Sixfold settings.`,
+      html_body: `<p>Hello ${escapeHtml(u.name)},</p><p>${escapeHtml(text).replace(/\n/g, "<br>")}</p><p><a href="${escapeHtml(link)}">Open it in Sixfold</a></p><p style="color:#777">You can mute this kind of mail in your Sixfold settings.</p>`,
+    }));
     await insertMails(rows);
   } catch (err) {
     console.error("[mail] could not queue a notification; the action itself is kept", err);
@@ -93,7 +102,13 @@ export async function flushOutbox(limit = 50): Promise<number> {
     const due = await dueMails(limit);
     for (const m of due) {
       try {
-        await transport().sendMail({ from: process.env.MAIL_FROM ?? "Sixfold <sixfold@larkspur.example>", to: m.to_address, subject: m.subject, text: m.text_body, html: m.html_body });
+        await transport().sendMail({
+          from: process.env.MAIL_FROM ?? "Sixfold <sixfold@larkspur.example>",
+          to: m.to_address,
+          subject: m.subject,
+          text: m.text_body,
+          html: m.html_body,
+        });
         await markSent(m.id, m.attempts + 1);
         sent++;
       } catch (err) {

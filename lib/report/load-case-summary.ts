@@ -25,5 +25,11 @@ export function summariseLoadCases(r: Report): LoadCaseSummary | null {
   if (liftOff.length) parts.push(`seats lift off in ${liftOff.map((l) => `${l.id} (${l.seats.join(", ")})`).join("; ")}`);
   if (worstMargin) parts.push(`smallest seating margin ${worstMargin.margin.toPrecision(3)} in ${worstMargin.id}`);
   if (!notHeld.length && !liftOff.length) parts.unshift(`held in all ${solved.length}`);
-  return { cases: solved.length, notHeld, liftOff, worstMargin, text: `Seating over ${solved.length} load case${solved.length === 1 ? "" : "s"}: ${parts.join("; ")}.` };
+  return {
+    cases: solved.length,
+    notHeld,
+    liftOff,
+    worstMargin,
+    text: `Seating over ${solved.length} load case${solved.length === 1 ? "" : "s"}: ${parts.join("; ")}.`,
+  };
 }

@@ -21,15 +21,35 @@ export function renderReleaseReport(data: ReleaseReportData, approval?: { by: st
   const fu = unitLabel(r.units.force);
   const lines: string[] = [];
   // only a stored approval makes a release report; anything else is a draft (issue: no report may claim an approval that did not happen)
-  const record = approval ? { by: approval.by, at: approval.at.toISOString() } : rev.release?.approvedBy && rev.release.approvedAt ? { by: rev.release.approvedBy, at: rev.release.approvedAt } : null;
+  const record = approval
+    ? { by: approval.by, at: approval.at.toISOString() }
+    : rev.release?.approvedBy && rev.release.approvedAt
+      ? { by: rev.release.approvedBy, at: rev.release.approvedAt }
+      : null;
   const approved = record !== null;
   lines.push(approved ? `# Release report — ${layout.name}, revision ${rev.number}` : `# DRAFT, not approved — ${layout.name}, revision ${rev.number}`, "");
   if (!approved) lines.push("> **Draft.** This revision has not been released: this document is not a release record and carries no approval.", "");
   lines.push(`Drawing views: /layouts/${rev.layoutId}/print?revision=${rev.id} (plan, front, side and axonometric).`, "");
-  lines.push(`Project: ${layout.project}  `, `File: ${rev.fileName} (${rev.encoding.toUpperCase()}), uploaded by ${rev.uploadedBy} on ${rev.createdAt.slice(0, 10)}  `, `Layout: ${r.layout}`, "");
+  lines.push(
+    `Project: ${layout.project}  `,
+    `File: ${rev.fileName} (${rev.encoding.toUpperCase()}), uploaded by ${rev.uploadedBy} on ${rev.createdAt.slice(0, 10)}  `,
+    `Layout: ${r.layout}`,
+    "",
+  );
   lines.push("## Summary", "", "| quantity | value |", "|---|---|");
-  lines.push(`| bodies | ${r.counts.bodies} |`, `| contacts | ${r.counts.contacts} |`, `| rank | ${r.counts.rank} |`, `| freedoms | ${r.counts.freedoms} |`, `| redundancies | ${r.counts.redundancies} |`);
-  lines.push(`| Grübler–Kutzbach 6N − m | ${r.counts.grubler} |`, `| conditioning σ_r/σ_max | ${num(r.conditioning)} |`, `| characteristic length | ${num(r.scaling.length)} ${u} |`, `| centroid | ${vec(r.scaling.centroid, u)} |`);
+  lines.push(
+    `| bodies | ${r.counts.bodies} |`,
+    `| contacts | ${r.counts.contacts} |`,
+    `| rank | ${r.counts.rank} |`,
+    `| freedoms | ${r.counts.freedoms} |`,
+    `| redundancies | ${r.counts.redundancies} |`,
+  );
+  lines.push(
+    `| Grübler–Kutzbach 6N − m | ${r.counts.grubler} |`,
+    `| conditioning σ_r/σ_max | ${num(r.conditioning)} |`,
+    `| characteristic length | ${num(r.scaling.length)} ${u} |`,
+    `| centroid | ${vec(r.scaling.centroid, u)} |`,
+  );
   const seating = summariseLoadCases(r);
   if (seating) lines.push(`| seating (every load case) | ${seating.text.replace(/^Seating over /, "").replace(/\|/g, "/")} |`);
   if (r.foundation) lines.push(`| foundation coupling | ${num(r.foundation.maxPerMicrometre)} ${fu} per µm |`);
@@ -40,7 +60,11 @@ export function renderReleaseReport(data: ReleaseReportData, approval?: { by: st
     lines.push("## Rule overrides of the project (in force for this revision)", "", "| rule | severity | options | reason | set by |", "|---|---|---|---|---|");
     for (const [rule, o] of overridden) {
       const why = rows.find((x) => x.rule === rule);
-      const opts = o.options ? Object.entries(o.options).map(([k, v]) => `${k} = ${JSON.stringify(v)}`).join(", ") : "—";
+      const opts = o.options
+        ? Object.entries(o.options)
+            .map(([k, v]) => `${k} = ${JSON.stringify(v)}`)
+            .join(", ")
+        : "—";
       lines.push(`| ${rule} | ${o.severity ?? "as defined"} | ${opts} | ${(why?.reason ?? "").replace(/\|/g, "/")} | ${why?.who ?? ""} |`);
     }
     lines.push("");
@@ -49,10 +73,17 @@ export function renderReleaseReport(data: ReleaseReportData, approval?: { by: st
   if (solved.length) {
     // every load case, side by side: a case that fails must be in the record, not only the first
     const ids = [...new Set(solved.flatMap((c) => Object.keys(c.seating!.forces ?? {})))];
-    lines.push(`## Seated contact forces by load case (${fu})`, "", `| contact | ${solved.map((c) => c.id).join(" | ")} |`, `|---|${solved.map(() => "---").join("|")}|`);
+    lines.push(
+      `## Seated contact forces by load case (${fu})`,
+      "",
+      `| contact | ${solved.map((c) => c.id).join(" | ")} |`,
+      `|---|${solved.map(() => "---").join("|")}|`,
+    );
     if (!ids.length) lines.push(`| — | ${solved.map(() => "not held").join(" | ")} |`);
     for (const id of ids) {
-      const cells = solved.map((c) => (c.seating!.forces === null ? "not held" : c.seating!.liftOff.includes(id) ? "lifts off" : num(c.seating!.forces[id] ?? 0)));
+      const cells = solved.map((c) =>
+        c.seating!.forces === null ? "not held" : c.seating!.liftOff.includes(id) ? "lifts off" : num(c.seating!.forces[id] ?? 0),
+      );
       lines.push(`| ${id} | ${cells.join(" | ")} |`);
     }
     lines.push(`| margin | ${solved.map((c) => (c.seating!.forces === null || c.seating!.margin === null ? "—" : num(c.seating!.margin))).join(" | ")} |`, "");

@@ -9,8 +9,33 @@ import type { Report } from "@/lib/engine";
 import { expandFlexures } from "@/lib/layout/flexures";
 
 const replacements: [RegExp, string][] = [
-  [/σ/g, "sigma"], [/−/g, "-"], [/–|—/g, "-"], [/→/g, "->"], [/≈/g, "~"], [/■/g, "[E]"], [/▲/g, "[W]"], [/●/g, "[I]"],
-  [/◆/g, "*"], [/◇/g, "o"], [/○/g, "o"], [/✓/g, "v"], [/…/g, "..."], [/×/g, "x"], [/·/g, "."], [/‘|’/g, "'"], [/“|”/g, '"'], [/ü/g, "ue"], [/λ/g, "lambda"], [/δ/g, "delta"], [/ω/g, "omega"], [/√/g, "sqrt"], [/²/g, "^2"], [/³/g, "^3"], [/⁺/g, "+"], [/ᵀ/g, "T"], [/Ŵ|t̂/g, "w"],
+  [/σ/g, "sigma"],
+  [/−/g, "-"],
+  [/–|—/g, "-"],
+  [/→/g, "->"],
+  [/≈/g, "~"],
+  [/■/g, "[E]"],
+  [/▲/g, "[W]"],
+  [/●/g, "[I]"],
+  [/◆/g, "*"],
+  [/◇/g, "o"],
+  [/○/g, "o"],
+  [/✓/g, "v"],
+  [/…/g, "..."],
+  [/×/g, "x"],
+  [/·/g, "."],
+  [/‘|’/g, "'"],
+  [/“|”/g, '"'],
+  [/ü/g, "ue"],
+  [/λ/g, "lambda"],
+  [/δ/g, "delta"],
+  [/ω/g, "omega"],
+  [/√/g, "sqrt"],
+  [/²/g, "^2"],
+  [/³/g, "^3"],
+  [/⁺/g, "+"],
+  [/ᵀ/g, "T"],
+  [/Ŵ|t̂/g, "w"],
 ];
 
 /** Makes text safe for the standard PDF fonts (WinAnsi). */
@@ -68,7 +93,18 @@ export async function reportPdf(markdown: string, drawing?: { layout: Layout; re
     else if (/^## /.test(line)) {
       if (!drew && drawing && /^## Findings/.test(line)) {
         drew = true;
-        drawPlan(page, drawing, margin, y, regular, (h) => { ensure(h); return y; }, (dy) => (y -= dy));
+        drawPlan(
+          page,
+          drawing,
+          margin,
+          y,
+          regular,
+          (h) => {
+            ensure(h);
+            return y;
+          },
+          (dy) => (y -= dy),
+        );
       }
       y -= 6;
       write(line.slice(3), bold, 12.5, 0, 4);
@@ -77,7 +113,17 @@ export async function reportPdf(markdown: string, drawing?: { layout: Layout; re
       write(line.slice(4), bold, 10.5, 0, 3);
     } else if (/^\|/.test(line)) {
       if (/^\|[-| ]+\|$/.test(line)) continue;
-      write(line.split("|").slice(1, -1).map((c) => c.trim()).join("   "), mono, 8.5, 8, 2);
+      write(
+        line
+          .split("|")
+          .slice(1, -1)
+          .map((c) => c.trim())
+          .join("   "),
+        mono,
+        8.5,
+        8,
+        2,
+      );
     } else if (/^> /.test(line)) write(line.slice(2), regular, 8.5, 8, 2);
     else if (/^- /.test(line)) write(`- ${line.slice(2)}`, regular, 9.5, 6, 2);
     else if (line.trim() === "") y -= 4;
@@ -92,7 +138,15 @@ export async function reportPdf(markdown: string, drawing?: { layout: Layout; re
   return doc.save();
 }
 
-function drawPlan(page: PDFPage, { layout }: { layout: Layout; report: Report }, margin: number, _y: number, font: PDFFont, ensure: (h: number) => number, advance: (dy: number) => void) {
+function drawPlan(
+  page: PDFPage,
+  { layout }: { layout: Layout; report: Report },
+  margin: number,
+  _y: number,
+  font: PDFFont,
+  ensure: (h: number) => number,
+  advance: (dy: number) => void,
+) {
   const h = 220;
   const top = ensure(h + 20);
   const w = 595.28 - 2 * margin;
@@ -108,7 +162,7 @@ function drawPlan(page: PDFPage, { layout }: { layout: Layout; report: Report },
   const Y = (yy: number) => top - h / 2 + (yy - cy) * s;
   page.drawRectangle({ x: margin, y: top - h, width: w, height: h, borderColor: rgb(0.6, 0.6, 0.6), borderWidth: 0.5 });
   page.drawText("Plan view (looking down -z; x right, y up)", { x: margin + 4, y: top - 10, size: 7.5, font });
-  const arrow = (span * 0.08) * s;
+  const arrow = span * 0.08 * s;
   for (const c of expandFlexures(layout).contacts) {
     const x = X(c.point[0]);
     const yy = Y(c.point[1]);

@@ -22,7 +22,12 @@ export function serviceSections(r: Report, heading = "##"): string[] {
   const t = r.thermal;
   if (t) {
     const swing = t.swingK ?? 1;
-    lines.push(`${heading} Temperature`, "", `Per kelvin and over ${t.swingK === null ? "1 K (no swing given)" : `a swing of ${num(swing)} K`}.${t.undetermined ? " A free motion remains: drift along it is not determined (smallest motion shown)." : ""}`, "");
+    lines.push(
+      `${heading} Temperature`,
+      "",
+      `Per kelvin and over ${t.swingK === null ? "1 K (no swing given)" : `a swing of ${num(swing)} K`}.${t.undetermined ? " A free motion remains: drift along it is not determined (smallest motion shown)." : ""}`,
+      "",
+    );
     lines.push(`| body | thermal centre (${u}) |`, "|---|---|");
     for (const [id, b] of Object.entries(t.bodies)) lines.push(`| ${id} | ${b.centre ? vec(b.centre) : "none (same expansion as the base)"} |`);
     const pts = Object.entries(t.points);
@@ -43,10 +48,19 @@ export function serviceSections(r: Report, heading = "##"): string[] {
   }
   const rep = r.repeatability;
   if (rep) {
-    lines.push(`${heading} Repeatability`, "", `Scatter of each functional point from seat scatter (1σ along each normal).${rep.undetermined ? " A free motion remains: scatter along it is not determined." : ""}`, "");
+    lines.push(
+      `${heading} Repeatability`,
+      "",
+      `Scatter of each functional point from seat scatter (1σ along each normal).${rep.undetermined ? " A free motion remains: scatter along it is not determined." : ""}`,
+      "",
+    );
     lines.push("| point | 1σ x, y, z (µm) | 3σ largest semi-axis (µm) | largest contributors |", "|---|---|---|---|");
     for (const [id, p] of Object.entries(rep.points)) {
-      const top = Object.entries(p.contributions).sort((a, b) => b[1] - a[1]).slice(0, 3).map(([c, s]) => `${c} ${num(s * 100, 3)} %`).join(", ");
+      const top = Object.entries(p.contributions)
+        .sort((a, b) => b[1] - a[1])
+        .slice(0, 3)
+        .map(([c, s]) => `${c} ${num(s * 100, 3)} %`)
+        .join(", ");
       lines.push(`| ${id} | ${vec(p.sigmaUm)} | ${num(3 * p.semiAxesUm[0])} | ${top || "—"} |`);
     }
     lines.push("");

@@ -21,7 +21,14 @@ export async function commentOnThread(user: SessionUser, threadId: number, body:
   const { mentionedIds, ...comment } = await storeComment(user, threadId, body);
   const f = await threadFollowers(threadId);
   const excerpt = body.length > EXCERPT ? `${body.slice(0, EXCERPT)}…` : body;
-  await enqueueMail(mentionedIds, "mention", `${user.name} mentioned you: ${f.title}`, `${user.name} mentioned you on "${f.title}" (${f.layoutName}):\n\n${excerpt}`, `/findings/${threadId}`, user.id);
+  await enqueueMail(
+    mentionedIds,
+    "mention",
+    `${user.name} mentioned you: ${f.title}`,
+    `${user.name} mentioned you on "${f.title}" (${f.layoutName}):\n\n${excerpt}`,
+    `/findings/${threadId}`,
+    user.id,
+  );
   const mentioned = new Set(mentionedIds);
   await enqueueMail(
     [f.owner, ...(f.checker ? [f.checker] : [])].filter((id) => !mentioned.has(id)),
@@ -53,12 +60,26 @@ export async function decideFinding(user: SessionUser, threadId: number, input: 
 export async function askForRelease(user: SessionUser, revisionId: number): Promise<void> {
   await storeRequest(user, revisionId);
   const a = await releaseAudience(revisionId);
-  await enqueueMail(a.checkers, "release-request", `Release requested: ${a.layoutName} r${a.number}`, `${user.name} asks for release of revision ${a.number} of ${a.layoutName}.`, `/layouts/${a.layoutId}?revision=${revisionId}`, user.id);
+  await enqueueMail(
+    a.checkers,
+    "release-request",
+    `Release requested: ${a.layoutName} r${a.number}`,
+    `${user.name} asks for release of revision ${a.number} of ${a.layoutName}.`,
+    `/layouts/${a.layoutId}?revision=${revisionId}`,
+    user.id,
+  );
 }
 
 /** A checker approves; the report is filed with the approval, and the requester and owner are told. */
 export async function approveAndRelease(user: SessionUser, revisionId: number): Promise<void> {
   await storeApproval(user, revisionId, (rid, approval) => releaseReportMarkdown(user, rid, approval));
   const a = await releaseAudience(revisionId);
-  await enqueueMail([...(a.requester ? [a.requester] : []), a.owner], "release", `Released: ${a.layoutName} r${a.number}`, `${user.name} approved the release of revision ${a.number} of ${a.layoutName}.`, `/layouts/${a.layoutId}?revision=${revisionId}`, user.id);
+  await enqueueMail(
+    [...(a.requester ? [a.requester] : []), a.owner],
+    "release",
+    `Released: ${a.layoutName} r${a.number}`,
+    `${user.name} approved the release of revision ${a.number} of ${a.layoutName}.`,
+    `/layouts/${a.layoutId}?revision=${revisionId}`,
+    user.id,
+  );
 }

@@ -15,8 +15,7 @@ import type { Report } from "@/lib/engine";
 import type { RuleOverride } from "@/rules";
 
 export type AnalysisOutcome =
-  | { ok: true; layout: Layout; report: Report; encoding: Encoding; text: string; warnings: string[] }
-  | { ok: false; errors: LayoutError[] };
+  { ok: true; layout: Layout; report: Report; encoding: Encoding; text: string; warnings: string[] } | { ok: false; errors: LayoutError[] };
 
 /** The worker bundle, built by `node scripts/build-worker.mjs` (part of the start and test commands). */
 export function workerPath(): string {
@@ -73,7 +72,10 @@ export async function analyseInWorker(
   } catch (err) {
     const e = err as Error;
     if (e?.name === "AbortError" || signal.aborted) {
-      throw new AppError(503, `The analysis did not finish within ${Math.max(1, Math.round(timeoutMs / 1000))} s (waiting for a free analysis thread included) and was stopped. Nothing was stored.`);
+      throw new AppError(
+        503,
+        `The analysis did not finish within ${Math.max(1, Math.round(timeoutMs / 1000))} s (waiting for a free analysis thread included) and was stopped. Nothing was stored.`,
+      );
     }
     console.error("[analysis] worker failed", e);
     throw new AppError(500, "The analysis failed on this file. Nothing was stored.");

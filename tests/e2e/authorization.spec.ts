@@ -24,7 +24,9 @@ async function signedIn(role: Who): Promise<APIRequestContext> {
   const ctx = await request.newContext({ baseURL: base, extraHTTPHeaders: { origin: base } });
   const u = demoUsers.find((d) => d.role === role)!;
   const { csrfToken } = await (await ctx.get("/api/auth/csrf")).json();
-  const res = await ctx.post("/api/auth/callback/credentials", { form: { csrfToken, email: u.email, password: u.password, json: "true", callbackUrl: `${base}/projects` } });
+  const res = await ctx.post("/api/auth/callback/credentials", {
+    form: { csrfToken, email: u.email, password: u.password, json: "true", callbackUrl: `${base}/projects` },
+  });
   expect(res.status()).toBeLessThan(400);
   const me = await ctx.get("/api/projects");
   expect(me.status()).toBe(200);
@@ -61,15 +63,39 @@ test("every route × every role, signed out and by token: no unexpected allow", 
     { name: "assign checker", method: "PATCH", path: `/api/projects/${stage.id}`, allow: ["manager"], body: () => ({ checkerId: 999999 }) },
     { name: "read materials library", method: "GET", path: `/api/projects/${stage.id}/materials`, allow: everyone },
     // an invalid entry: past the gate admins and managers get 422, so the matrix changes no library
-    { name: "set library material", method: "POST", path: `/api/projects/${stage.id}/materials`, allow: ["admin", "manager"], body: () => ({ id: "Not Kebab", source: "x" }) },
+    {
+      name: "set library material",
+      method: "POST",
+      path: `/api/projects/${stage.id}/materials`,
+      allow: ["admin", "manager"],
+      body: () => ({ id: "Not Kebab", source: "x" }),
+    },
     { name: "remove library material", method: "DELETE", path: `/api/projects/${stage.id}/materials/no-such-material`, allow: ["admin", "manager"] },
     { name: "list users (admin)", method: "GET", path: "/api/admin/users", allow: ["admin"] },
-    { name: "add user (admin)", method: "POST", path: "/api/admin/users", allow: ["admin"], body: () => ({ name: "x", email: "not-an-email", role: "designer", password: "short" }) },
+    {
+      name: "add user (admin)",
+      method: "POST",
+      path: "/api/admin/users",
+      allow: ["admin"],
+      body: () => ({ name: "x", email: "not-an-email", role: "designer", password: "short" }),
+    },
     { name: "change user (admin)", method: "PATCH", path: "/api/admin/users/999999", allow: ["admin"], body: () => ({ active: true }) },
     { name: "read rule overrides", method: "GET", path: `/api/projects/${stage.id}/overrides`, allow: everyone },
     // an unknown rule: past the gate the admin gets 422, so the matrix changes no project's rules
-    { name: "change rule override", method: "POST", path: `/api/projects/${stage.id}/overrides`, allow: ["admin"], body: () => ({ action: "set", rule: "no-such-rule", severity: "info", reason: "matrix check of the override gate" }) },
-    { name: "create layout", method: "POST", path: `/api/projects/${stage.id}/layouts`, allow: ["designer"], body: () => ({ name: unique(), description: "" }) },
+    {
+      name: "change rule override",
+      method: "POST",
+      path: `/api/projects/${stage.id}/overrides`,
+      allow: ["admin"],
+      body: () => ({ action: "set", rule: "no-such-rule", severity: "info", reason: "matrix check of the override gate" }),
+    },
+    {
+      name: "create layout",
+      method: "POST",
+      path: `/api/projects/${stage.id}/layouts`,
+      allow: ["designer"],
+      body: () => ({ name: unique(), description: "" }),
+    },
     { name: "read layout", method: "GET", path: `/api/layouts/${plateLayout.id}`, allow: everyone },
     { name: "upload revision (browser)", method: "POST", path: `/api/layouts/${plateLayout.id}/revisions`, allow: ["designer"], multipart: true },
     { name: "read revision", method: "GET", path: `/api/revisions/${rev}`, allow: everyone },
@@ -79,9 +105,21 @@ test("every route × every role, signed out and by token: no unexpected allow", 
     { name: "approve release", method: "POST", path: `/api/revisions/${rev}/release`, allow: ["checker"], body: () => ({ action: "approve" }) },
     { name: "withdraw release request", method: "POST", path: `/api/revisions/${rev}/release`, allow: ["designer"], body: () => ({ action: "withdraw" }) },
     { name: "read thread", method: "GET", path: `/api/threads/${thread}`, allow: everyone },
-    { name: "waive or reopen", method: "POST", path: `/api/threads/${thread}/status`, allow: ["checker"], body: () => ({ action: "waive", reason: "matrix check with a stale version", version: 999 }) },
+    {
+      name: "waive or reopen",
+      method: "POST",
+      path: `/api/threads/${thread}/status`,
+      allow: ["checker"],
+      body: () => ({ action: "waive", reason: "matrix check with a stale version", version: 999 }),
+    },
     { name: "comment", method: "POST", path: `/api/threads/${thread}/comments`, allow: ["designer", "checker"], body: () => ({ body: "matrix" }) },
-    { name: "edit a checker's comment", method: "PATCH", path: `/api/comments/${comment.comment.id}`, allow: ["checker"], body: () => ({ body: "matrix edited" }) },
+    {
+      name: "edit a checker's comment",
+      method: "PATCH",
+      path: `/api/comments/${comment.comment.id}`,
+      allow: ["checker"],
+      body: () => ({ body: "matrix edited" }),
+    },
     { name: "download example", method: "GET", path: "/api/examples/breadboard-four-feet.json", allow: everyone },
     { name: "dashboard", method: "GET", path: "/api/dashboard", allow: everyone },
     { name: "list own tokens", method: "GET", path: "/api/tokens", allow: everyone },
@@ -89,12 +127,19 @@ test("every route × every role, signed out and by token: no unexpected allow", 
     { name: "revoke unknown token", method: "DELETE", path: "/api/tokens/999999", allow: everyone },
     { name: "mail settings", method: "GET", path: "/api/settings/mail", allow: everyone },
     { name: "set mail mutes", method: "PUT", path: "/api/settings/mail", allow: everyone, body: () => ({ muted: [] }) },
-    { name: "upload revision (API v1)", method: "POST", path: `/api/v1/layouts/${plateLayout.id}/revisions`, allow: ["designer"], raw: { type: "text/csv", data: "id,x,y,z,nx,ny,nz\na,0,0,0,0,0,0\n" } },
+    {
+      name: "upload revision (API v1)",
+      method: "POST",
+      path: `/api/v1/layouts/${plateLayout.id}/revisions`,
+      allow: ["designer"],
+      raw: { type: "text/csv", data: "id,x,y,z,nx,ny,nz\na,0,0,0,0,0,0\n" },
+    },
     { name: "open findings (API v1)", method: "GET", path: `/api/v1/layouts/${plateLayout.id}/findings?status=open`, allow: everyone },
   ];
 
   const call = (ctx: APIRequestContext, row: Row) => {
-    if (row.multipart) return ctx.fetch(row.path, { method: row.method, multipart: { file: { name: "bad.csv", mimeType: "text/csv", buffer: Buffer.from("id,x\n") } } });
+    if (row.multipart)
+      return ctx.fetch(row.path, { method: row.method, multipart: { file: { name: "bad.csv", mimeType: "text/csv", buffer: Buffer.from("id,x\n") } } });
     if (row.raw) return ctx.fetch(row.path, { method: row.method, headers: { "content-type": row.raw.type }, data: row.raw.data });
     return ctx.fetch(row.path, { method: row.method, ...(row.body ? { data: row.body() } : {}) });
   };
@@ -104,11 +149,15 @@ test("every route × every role, signed out and by token: no unexpected allow", 
     const out = await call(anonymous, row);
     if (out.status() !== 401) problems.push(`${row.name}: signed out got ${out.status()}, expected 401`);
     for (const who of everyone) {
-      for (const [kind, ctx] of [["session", sessions[who]], ["token", tokens[who]]] as const) {
+      for (const [kind, ctx] of [
+        ["session", sessions[who]],
+        ["token", tokens[who]],
+      ] as const) {
         const res = await call(ctx, row);
         const s = res.status();
         if (s >= 500) problems.push(`${row.name}: ${who} ${kind} got ${s}`);
-        else if (row.allow.includes(who) && (s === 401 || s === 403)) problems.push(`${row.name}: ${who} ${kind} refused with ${s} (${(await res.text()).slice(0, 80)})`);
+        else if (row.allow.includes(who) && (s === 401 || s === 403))
+          problems.push(`${row.name}: ${who} ${kind} refused with ${s} (${(await res.text()).slice(0, 80)})`);
         else if (!row.allow.includes(who) && s !== 403) problems.push(`${row.name}: ${who} ${kind} got ${s}, expected 403 — UNEXPECTED ALLOW`);
       }
     }
@@ -149,7 +198,11 @@ test("session cookie is httpOnly and SameSite=Lax; repeated failures lock sign-i
   const ctx = await request.newContext({ baseURL: base });
   const { csrfToken } = await (await ctx.get("/api/auth/csrf")).json();
   const ok = await ctx.post("/api/auth/callback/credentials", { form: { csrfToken, email: "mira@larkspur.example", password: "manager-demo", json: "true" } });
-  const cookie = ok.headersArray().filter((h) => h.name.toLowerCase() === "set-cookie").map((h) => h.value).find((v) => v.includes("session-token"))!;
+  const cookie = ok
+    .headersArray()
+    .filter((h) => h.name.toLowerCase() === "set-cookie")
+    .map((h) => h.value)
+    .find((v) => v.includes("session-token"))!;
   expect(cookie).toMatch(/HttpOnly/i);
   expect(cookie).toMatch(/SameSite=Lax/i);
 

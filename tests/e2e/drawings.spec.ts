@@ -11,7 +11,10 @@ test("a finding page draws four views with its contacts emphasised", async ({ pa
   await expect(page.getByTestId("drawing-legend")).toBeVisible();
   // the stage's one free motion (translation along x) is drawn in every view
   await expect(page.locator('svg[data-view] [data-motion="0"]')).toHaveCount(4);
-  await page.getByTestId("findings-table").getByRole("link", { name: /Over-constrained loop/ }).click();
+  await page
+    .getByTestId("findings-table")
+    .getByRole("link", { name: /Over-constrained loop/ })
+    .click();
   await expect(page.locator("svg[data-view]")).toHaveCount(4);
   // four involved contacts, in each of four views
   await expect(page.locator('[data-emphasised="true"]')).toHaveCount(16);
@@ -21,7 +24,9 @@ test("a finding page draws four views with its contacts emphasised", async ({ pa
   await expect(page.getByTestId("contact-info")).toContainText("blade-A.a");
   await expect(page.getByTestId("contact-info")).toContainText("mm");
   // a flexure row reads out its element: kind, dimensions and stiffness with units
-  await expect(page.getByTestId("contact-info")).toContainText(/blade blade-A \(row a\): length 40 mm, width 60 mm, thickness 0\.25 mm, blade-steel, stiffness [\d.]+ N\/mm/);
+  await expect(page.getByTestId("contact-info")).toContainText(
+    /blade blade-A \(row a\): length 40 mm, width 60 mm, thickness 0\.25 mm, blade-steel, stiffness [\d.]+ N\/mm/,
+  );
   await page.screenshot({ path: info.outputPath("finding-drawings.png"), fullPage: true });
 });
 
@@ -54,7 +59,10 @@ test("the layout page shows the temperature panel, the error budget and the flex
   // sorting the contribution table by share puts the largest share first, then reverses on a second click
   const firstShare = () => page.getByTestId("contribution-table").locator("tbody tr").first().locator("td").nth(1).innerText();
   const top = Number(await firstShare());
-  await page.getByTestId("contribution-table").getByRole("button", { name: /share of variance/ }).click();
+  await page
+    .getByTestId("contribution-table")
+    .getByRole("button", { name: /share of variance/ })
+    .click();
   expect(Number(await firstShare())).toBeLessThan(top);
   // the drawings mark the thermal centre and the 3σ ellipses in every view
   await expect(page.locator("svg[data-view] [data-thermal-centre]")).toHaveCount(4);

@@ -44,7 +44,10 @@ test("an upload without Content-Length is refused at 5 MB with 413 on both uploa
 
   const api = await chunkedUpload(`/api/v1/layouts/${layoutId}/revisions`, { ...auth, "content-type": "application/json" }, 200);
   expect(api.status).toBe(413);
-  expect(JSON.parse(api.body)).toMatchObject({ error: expect.stringMatching(/5 MB limit\. Nothing was stored/), errors: [{ location: "file", message: "larger than 5 MB" }] });
+  expect(JSON.parse(api.body)).toMatchObject({
+    error: expect.stringMatching(/5 MB limit\. Nothing was stored/),
+    errors: [{ location: "file", message: "larger than 5 MB" }],
+  });
 
   const form = await chunkedUpload(`/api/layouts/${layoutId}/revisions`, { ...auth, "content-type": "multipart/form-data; boundary=xyz" }, 200);
   expect(form.status).toBe(413);
@@ -54,7 +57,9 @@ test("an upload without Content-Length is refused at 5 MB with 413 on both uploa
   expect((await page.request.get(`/api/v1/layouts/${layoutId}/findings`, { headers: auth })).status()).toBe(200);
 });
 
-test("400 mutated example files posted to the token API: each 201 or 422 with located errors, none a server error; only accepted ones stored", async ({ page }) => {
+test("400 mutated example files posted to the token API: each 201 or 422 with located errors, none a server error; only accepted ones stored", async ({
+  page,
+}) => {
   test.setTimeout(180_000);
   await signInAs(page, "designer");
   const { token } = await (await page.request.post("/api/tokens", { data: { name: "e2e mutations" } })).json();
@@ -70,7 +75,10 @@ test("400 mutated example files posted to the token API: each 201 or 422 with lo
     let text = readFileSync(file, "utf8");
     const edits = 1 + Math.floor(r() * 3);
     for (let k = 0; k < edits; k++) text = mutate(text, r);
-    const res = await page.request.post(`/api/v1/layouts/${layoutId}/revisions`, { headers: { ...auth, "content-type": types[file.split(".").pop()!], "x-file-name": `m${i}` }, data: text });
+    const res = await page.request.post(`/api/v1/layouts/${layoutId}/revisions`, {
+      headers: { ...auth, "content-type": types[file.split(".").pop()!], "x-file-name": `m${i}` },
+      data: text,
+    });
     const s = res.status();
     statuses[s] = (statuses[s] ?? 0) + 1;
     if (s === 422) {

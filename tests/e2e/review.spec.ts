@@ -27,7 +27,9 @@ test("designer creates a layout, uploads four feet and sees the over-constrained
   await expect(page.getByTestId("no-revisions")).toBeVisible();
   layoutUrl = new URL(page.url()).pathname;
   // a refused file: located errors, nothing stored
-  await page.locator('input[aria-label="Layout file"]').setInputFiles({ name: "broken.csv", mimeType: "text/csv", buffer: Buffer.from("id,x,y,z,nx,ny,nz\nF1,0,zero,0,0,0,1\n") });
+  await page
+    .locator('input[aria-label="Layout file"]')
+    .setInputFiles({ name: "broken.csv", mimeType: "text/csv", buffer: Buffer.from("id,x,y,z,nx,ny,nz\nF1,0,zero,0,0,0,1\n") });
   await expect(page.getByTestId("upload-errors")).toContainText("line 2, column 3 (y)");
   await expect(page.getByTestId("no-revisions")).toBeVisible();
   await upload(page, "breadboard-four-feet.json");
@@ -40,9 +42,13 @@ test("designer creates a layout, uploads four feet and sees the over-constrained
 test("checker comments with a markdown table and math; a script tag renders inert", async ({ page }) => {
   await signInAs(page, "checker");
   await page.goto(layoutUrl);
-  await page.getByTestId("findings-table").getByRole("link", { name: /Over-constrained loop/ }).click();
+  await page
+    .getByTestId("findings-table")
+    .getByRole("link", { name: /Over-constrained loop/ })
+    .click();
   await expect(page.getByTestId("finding-title")).toContainText("Over-constrained loop");
-  const text = "| warp | change |\n|---|---|\n| 1 µm | 10 N |\n\n$$F = k\\delta/4$$\n\n<script>window.__pwned = true</script><img src=x onerror=\"window.__pwned=true\"> [x](javascript:alert(1)) @dana";
+  const text =
+    '| warp | change |\n|---|---|\n| 1 µm | 10 N |\n\n$$F = k\\delta/4$$\n\n<script>window.__pwned = true</script><img src=x onerror="window.__pwned=true"> [x](javascript:alert(1)) @dana';
   await page.getByLabel("Comment", { exact: true }).fill(text);
   await expect(page.getByTestId("comment-preview").locator("table")).toBeVisible();
   await page.getByRole("button", { name: "Post comment" }).click();
@@ -58,7 +64,10 @@ test("checker comments with a markdown table and math; a script tag renders iner
 test("designer answers; designer can neither waive nor approve (no button, 403)", async ({ page }) => {
   await signInAs(page, "designer");
   await page.goto(layoutUrl);
-  await page.getByTestId("findings-table").getByRole("link", { name: /Over-constrained loop/ }).click();
+  await page
+    .getByTestId("findings-table")
+    .getByRole("link", { name: /Over-constrained loop/ })
+    .click();
   await page.getByLabel("Comment", { exact: true }).fill("Moving to three seats in revision 2.");
   await page.getByRole("button", { name: "Post comment" }).click();
   await expect(page.getByTestId("comments")).toContainText("Moving to three seats");
@@ -71,7 +80,10 @@ test("designer answers; designer can neither waive nor approve (no button, 403)"
 test("checker waives one finding with a reason", async ({ page }) => {
   await signInAs(page, "checker");
   await page.goto(layoutUrl);
-  await page.getByTestId("findings-table").getByRole("link", { name: /The count 6N − m = 2 hides/ }).click();
+  await page
+    .getByTestId("findings-table")
+    .getByRole("link", { name: /The count 6N − m = 2 hides/ })
+    .click();
   await page.getByLabel(/Justification/).fill("The count is explained by the four feet; tracked in the loop finding.");
   await page.getByRole("button", { name: "Waive finding" }).click();
   await expect(page.getByTestId("waiver")).toContainText("tracked in the loop finding");

@@ -8,7 +8,12 @@ import { winAnsi } from "../../lib/report/pdf";
 
 const captured = () => {
   const file = process.env.MAIL_CAPTURE_FILE ?? ".data/mail/test-captured.jsonl";
-  return existsSync(file) ? readFileSync(file, "utf8").split("\n").filter(Boolean).map((l) => JSON.parse(l)) : [];
+  return existsSync(file)
+    ? readFileSync(file, "utf8")
+        .split("\n")
+        .filter(Boolean)
+        .map((l) => JSON.parse(l))
+    : [];
 };
 
 test("an @mention sends a mail that the fake SMTP server captures, and the admin page lists it", async ({ page }) => {
@@ -16,14 +21,21 @@ test("an @mention sends a mail that the fake SMTP server captures, and the admin
   await page.goto("/projects");
   await page.getByRole("link", { name: "Detachable instrument plate" }).click();
   await page.getByRole("link", { name: "Plate coupling" }).click();
-  await page.getByTestId("findings-table").getByRole("link", { name: /inverted: flat lifts off/ }).click();
+  await page
+    .getByTestId("findings-table")
+    .getByRole("link", { name: /inverted: flat lifts off/ })
+    .click();
   const marker = `preload check ${Date.now()}`;
   await page.getByLabel("Comment", { exact: true }).fill(`@dana please add a ${marker}.`);
   await page.getByRole("button", { name: "Post comment" }).click();
   await expect(page.getByTestId("comments")).toContainText(marker);
   // the mention stands out in the thread
   await expect(page.getByTestId("comments").locator(".mention", { hasText: "@dana" }).first()).toBeVisible();
-  await expect.poll(() => captured().find((m) => m.to.includes("dana@larkspur.example") && /mentioned you/.test(m.subject) && m.text.includes(marker)), { timeout: 15_000 }).toBeTruthy();
+  await expect
+    .poll(() => captured().find((m) => m.to.includes("dana@larkspur.example") && /mentioned you/.test(m.subject) && m.text.includes(marker)), {
+      timeout: 15_000,
+    })
+    .toBeTruthy();
   const mail = captured().find((m) => m.text.includes(marker));
   expect(mail.text).toMatch(/http:\/\/localhost:3100\/findings\/\d+/);
   await page.goto("/signout");
@@ -58,7 +70,10 @@ test("the CAD shell snippet posts with a token: 201 for a good file, 422 with lo
   expect(bad.status).toBe(2);
   expect(bad.stderr).toMatch(/line 2, columns 5–7 \(nx, ny, nz\)/);
   // without a valid token: 401; the findings endpoint answers the open ones
-  const denied = spawnSync("sh", ["public/sixfold-post.sh", String(layoutId), "examples/breadboard-three-seats.json"], { env: { ...env, SIXFOLD_TOKEN: "sfx_wrongwrongwrongwrongwrong" }, encoding: "utf8" });
+  const denied = spawnSync("sh", ["public/sixfold-post.sh", String(layoutId), "examples/breadboard-three-seats.json"], {
+    env: { ...env, SIXFOLD_TOKEN: "sfx_wrongwrongwrongwrongwrong" },
+    encoding: "utf8",
+  });
   expect(denied.status).toBe(3);
   expect(denied.stderr).toMatch(/HTTP 401/);
   const open = await page.request.get(`/api/v1/layouts/${layoutId}/findings?status=open`, { headers: { authorization: `Bearer ${token}` } });

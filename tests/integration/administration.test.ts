@@ -34,9 +34,13 @@ describe("project checker", () => {
     expect((await assignChecker(users.manager, p.id, users.checker.id)).checker).toMatchObject({ id: users.checker.id });
     expect((await assignChecker(users.manager, p.id, null)).checker).toBeNull();
     const history = await projectHistory(users.manager, p.id);
-    expect(history.map((h) => [h.detail.from, h.detail.to])).toEqual([[users.checker.name, null], [null, users.checker.name]]);
+    expect(history.map((h) => [h.detail.from, h.detail.to])).toEqual([
+      [users.checker.name, null],
+      [null, users.checker.name],
+    ]);
     expect(history[0].actor).toBe(users.manager.name);
-    for (const role of ["designer", "checker", "admin"]) await expect(assignChecker(users[role], p.id, users.checker.id)).rejects.toMatchObject({ status: 403 });
+    for (const role of ["designer", "checker", "admin"])
+      await expect(assignChecker(users[role], p.id, users.checker.id)).rejects.toMatchObject({ status: 403 });
     await expect(assignChecker(users.manager, p.id, users.designer.id)).rejects.toMatchObject({ status: 422 });
     expect((await getProject(users.manager, p.id)).checker).toBeNull();
   });
@@ -47,7 +51,9 @@ describe("users", () => {
     const u = await addUser(users.admin, { name: "Noor Haddad", email: "noor@larkspur.example", role: "checker", password: "checker-noor-1" });
     expect(u).toMatchObject({ role: "checker", active: true });
     expect(await verifyCredentials("noor@larkspur.example", "checker-noor-1")).toMatchObject({ id: u.id });
-    await expect(addUser(users.admin, { name: "Noor again", email: "noor@larkspur.example", role: "designer", password: "xxxxxxxxxxxx" })).rejects.toMatchObject({ status: 409 });
+    await expect(
+      addUser(users.admin, { name: "Noor again", email: "noor@larkspur.example", role: "designer", password: "xxxxxxxxxxxx" }),
+    ).rejects.toMatchObject({ status: 409 });
     for (const role of ["designer", "checker", "manager"]) await expect(listAllUsers(users[role])).rejects.toMatchObject({ status: 403 });
   });
 

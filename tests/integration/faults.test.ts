@@ -28,8 +28,28 @@ function bigChain(bodies: number): Uint8Array {
   const r = rng(11);
   const contacts: Layout["contacts"] = [];
   for (let b = 0; b < bodies; b++)
-    for (let k = 0; k < 6; k++) contacts.push({ id: `c${b}-${k}`, body: `b${b}`, on: b === 0 ? "ground" : `b${b - 1}`, point: [b * 100 + r() * 50, r() * 50, r() * 50] as Vec3, normal: [r() - 0.5, r() - 0.5, r() - 0.5] as Vec3, sense: "unilateral" });
-  const l: Layout = { format: "mount-layout/1", name: "chain", units: { length: "mm", force: "N" }, gravity: [0, 0, -9.80665], tolerance: 1e-6, intendedFreedoms: 0, bodies: Array.from({ length: bodies }, (_, i) => ({ id: `b${i}` })), materials: [], contacts, loads: [], points: [] };
+    for (let k = 0; k < 6; k++)
+      contacts.push({
+        id: `c${b}-${k}`,
+        body: `b${b}`,
+        on: b === 0 ? "ground" : `b${b - 1}`,
+        point: [b * 100 + r() * 50, r() * 50, r() * 50] as Vec3,
+        normal: [r() - 0.5, r() - 0.5, r() - 0.5] as Vec3,
+        sense: "unilateral",
+      });
+  const l: Layout = {
+    format: "mount-layout/1",
+    name: "chain",
+    units: { length: "mm", force: "N" },
+    gravity: [0, 0, -9.80665],
+    tolerance: 1e-6,
+    intendedFreedoms: 0,
+    bodies: Array.from({ length: bodies }, (_, i) => ({ id: `b${i}` })),
+    materials: [],
+    contacts,
+    loads: [],
+    points: [],
+  };
   return new TextEncoder().encode(toJson(l));
 }
 
@@ -90,7 +110,10 @@ describe("faults", () => {
     const before = await counts();
     process.env.SIXFOLD_ANALYSIS_TIMEOUT_MS = "5";
     try {
-      await expect(uploadRevision(designer, layoutId, bigChain(40), { fileName: "slow.json" })).rejects.toMatchObject({ status: 503, message: expect.stringMatching(/Nothing was stored/) });
+      await expect(uploadRevision(designer, layoutId, bigChain(40), { fileName: "slow.json" })).rejects.toMatchObject({
+        status: 503,
+        message: expect.stringMatching(/Nothing was stored/),
+      });
     } finally {
       delete process.env.SIXFOLD_ANALYSIS_TIMEOUT_MS;
     }

@@ -45,11 +45,22 @@ const barFile = (mat: string) =>
 
 describe("materials library", () => {
   it("managers and admins keep it, with a source; designers and checkers cannot", async () => {
-    await setProjectMaterial(users.manager, projectId, { id: "supplier-invar", expansionPerK: 1.1e-6, youngsModulusGPa: 140, source: "Supplier datasheet DS-36, rev. C (demo)" });
-    await expect(setProjectMaterial(users.designer, projectId, { id: "x-mat", expansionPerK: 1e-6, source: "nowhere at all" })).rejects.toMatchObject({ status: 403 });
-    await expect(setProjectMaterial(users.checker, projectId, { id: "x-mat", expansionPerK: 1e-6, source: "nowhere at all" })).rejects.toMatchObject({ status: 403 });
+    await setProjectMaterial(users.manager, projectId, {
+      id: "supplier-invar",
+      expansionPerK: 1.1e-6,
+      youngsModulusGPa: 140,
+      source: "Supplier datasheet DS-36, rev. C (demo)",
+    });
+    await expect(setProjectMaterial(users.designer, projectId, { id: "x-mat", expansionPerK: 1e-6, source: "nowhere at all" })).rejects.toMatchObject({
+      status: 403,
+    });
+    await expect(setProjectMaterial(users.checker, projectId, { id: "x-mat", expansionPerK: 1e-6, source: "nowhere at all" })).rejects.toMatchObject({
+      status: 403,
+    });
     const list = await listProjectMaterials(users.designer, projectId);
-    expect(list).toEqual([expect.objectContaining({ id: "supplier-invar", expansionPerK: 1.1e-6, source: "Supplier datasheet DS-36, rev. C (demo)", setBy: users.manager.name })]);
+    expect(list).toEqual([
+      expect.objectContaining({ id: "supplier-invar", expansionPerK: 1.1e-6, source: "Supplier datasheet DS-36, rev. C (demo)", setBy: users.manager.name }),
+    ]);
   });
 
   it("an upload resolves a material id against the library (before the built-in table) and keeps the copy it used", async () => {

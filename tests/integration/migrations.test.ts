@@ -40,7 +40,16 @@ describe("migrations", () => {
     const { createHash } = await import("node:crypto");
     const sha = (t: string) => createHash("sha256").update(t).digest("hex");
     const layout = (await knex("layouts").first()).id;
-    const insert = (fp: string) => knex("threads").insert({ layout_id: layout, fingerprint: fp, fingerprint_hash: sha(fp), rule: "contact-overstress", severity: "error", title: fp, status: "open" });
+    const insert = (fp: string) =>
+      knex("threads").insert({
+        layout_id: layout,
+        fingerprint: fp,
+        fingerprint_hash: sha(fp),
+        rule: "contact-overstress",
+        severity: "error",
+        title: fp,
+        status: "open",
+      });
     const [older] = await insert("contact-overstress|B1|case:operating");
     const [newer] = await insert("contact-overstress|B1|case:shipping");
     const [other] = await insert("contact-overstress|B2|case:operating");

@@ -35,7 +35,9 @@ afterAll(async () => {
 describe("rule overrides", () => {
   it("only administrators change them (403 for the other roles); every role reads them", async () => {
     for (const role of ["designer", "checker", "manager"]) {
-      await expect(changeOverride(users[role], projectId, { action: "set", rule: "redundant-constraint", severity: "warning", options: null, reason: why })).rejects.toMatchObject({ status: 403 });
+      await expect(
+        changeOverride(users[role], projectId, { action: "set", rule: "redundant-constraint", severity: "warning", options: null, reason: why }),
+      ).rejects.toMatchObject({ status: 403 });
       expect((await listOverrides(users[role], projectId)).current).toEqual([]);
     }
     await expect(listOverrides(users.manager, 999999)).rejects.toMatchObject({ status: 404 });
@@ -43,15 +45,29 @@ describe("rule overrides", () => {
 
   it("refuses an unknown rule, unknown or ill-typed options, an override that changes nothing, and a missing reason (422)", async () => {
     const a = users.admin;
-    await expect(changeOverride(a, projectId, { action: "set", rule: "no-such-rule", severity: "info", options: null, reason: why })).rejects.toMatchObject({ status: 422, message: expect.stringMatching(/no rule "no-such-rule"/) });
-    await expect(changeOverride(a, projectId, { action: "set", rule: "weak-constraint", severity: null, options: { treshold: 0.1 }, reason: why })).rejects.toMatchObject({
+    await expect(changeOverride(a, projectId, { action: "set", rule: "no-such-rule", severity: "info", options: null, reason: why })).rejects.toMatchObject({
+      status: 422,
+      message: expect.stringMatching(/no rule "no-such-rule"/),
+    });
+    await expect(
+      changeOverride(a, projectId, { action: "set", rule: "weak-constraint", severity: null, options: { treshold: 0.1 }, reason: why }),
+    ).rejects.toMatchObject({
       status: 422,
       details: { fieldErrors: { options: ["Known options: threshold."] } },
     });
-    await expect(changeOverride(a, projectId, { action: "set", rule: "weak-constraint", severity: null, options: { threshold: "high" }, reason: why })).rejects.toMatchObject({ status: 422, message: expect.stringMatching(/do not fit/) });
-    await expect(changeOverride(a, projectId, { action: "set", rule: "weak-constraint", severity: null, options: { threshold: 2 }, reason: why })).rejects.toMatchObject({ status: 422 });
-    await expect(changeOverride(a, projectId, { action: "set", rule: "redundant-constraint", severity: "error", options: null, reason: why })).rejects.toMatchObject({ status: 422, message: expect.stringMatching(/changes nothing/) });
-    await expect(changeOverride(a, projectId, { action: "clear", rule: "redundant-constraint", reason: why })).rejects.toMatchObject({ status: 422, message: expect.stringMatching(/No override/) });
+    await expect(
+      changeOverride(a, projectId, { action: "set", rule: "weak-constraint", severity: null, options: { threshold: "high" }, reason: why }),
+    ).rejects.toMatchObject({ status: 422, message: expect.stringMatching(/do not fit/) });
+    await expect(
+      changeOverride(a, projectId, { action: "set", rule: "weak-constraint", severity: null, options: { threshold: 2 }, reason: why }),
+    ).rejects.toMatchObject({ status: 422 });
+    await expect(
+      changeOverride(a, projectId, { action: "set", rule: "redundant-constraint", severity: "error", options: null, reason: why }),
+    ).rejects.toMatchObject({ status: 422, message: expect.stringMatching(/changes nothing/) });
+    await expect(changeOverride(a, projectId, { action: "clear", rule: "redundant-constraint", reason: why })).rejects.toMatchObject({
+      status: 422,
+      message: expect.stringMatching(/No override/),
+    });
     expect(overrideInputSchema.safeParse({ action: "set", rule: "weak-constraint", severity: "info", reason: "short" }).success).toBe(false);
     expect(overrideInputSchema.safeParse({ action: "set", rule: "weak-constraint", severity: "fatal", reason: why }).success).toBe(false);
     expect((await listOverrides(a, projectId)).history).toEqual([]);
@@ -64,7 +80,14 @@ describe("rule overrides", () => {
     expect((await blockingFindings(before.revision.id)).length).toBeGreaterThan(0);
 
     const set = await changeOverride(users.admin, projectId, { action: "set", rule: "redundant-constraint", severity: "warning", options: null, reason: why });
-    expect(set).toMatchObject({ rule: "redundant-constraint", defaultSeverity: "error", severity: "warning", cleared: false, reason: why, setBy: users.admin.name });
+    expect(set).toMatchObject({
+      rule: "redundant-constraint",
+      defaultSeverity: "error",
+      severity: "warning",
+      cleared: false,
+      reason: why,
+      setBy: users.admin.name,
+    });
     expect(await overridesForLayout(layoutId)).toEqual({ "redundant-constraint": { severity: "warning" } });
 
     const after = await uploadRevision(users.designer, layoutId, file("breadboard-four-feet.json"), { fileName: "four-again.json" });
@@ -91,7 +114,13 @@ describe("rule overrides", () => {
     if (!plain.ok) throw new Error("upload refused");
     expect(plain.report.conditioning).toBeLessThan(0.9);
     expect(plain.report.findings.some((f) => f.rule === "weak-constraint")).toBe(false);
-    await changeOverride(users.admin, projectId, { action: "set", rule: "weak-constraint", severity: null, options: { threshold: 0.9 }, reason: "Metrology frame: hold every direction firmly." });
+    await changeOverride(users.admin, projectId, {
+      action: "set",
+      rule: "weak-constraint",
+      severity: null,
+      options: { threshold: 0.9 },
+      reason: "Metrology frame: hold every direction firmly.",
+    });
     const strict = await uploadRevision(users.designer, layoutId, file("breadboard-three-seats.json"), { fileName: "three-strict.json" });
     if (!strict.ok) throw new Error("upload refused");
     const weak = strict.report.findings.find((f) => f.rule === "weak-constraint");

@@ -63,13 +63,19 @@ describe("revisions and thread carry-over", () => {
 
   it("waiving needs a checker, a reason and the current version; a stale version is refused (409)", async () => {
     const t = (await listThreads(users.manager, layoutId)).find((x) => x.rule === "count-mismatch")!;
-    await expect(changeStatus(users.designer, t.id, { action: "waive", reason: "Looks fine to me, honestly.", version: t.version })).rejects.toMatchObject({ status: 403 });
+    await expect(changeStatus(users.designer, t.id, { action: "waive", reason: "Looks fine to me, honestly.", version: t.version })).rejects.toMatchObject({
+      status: 403,
+    });
     const waived = await changeStatus(users.checker, t.id, { action: "waive", reason: "Counted by hand: the loop is the four feet.", version: t.version });
     expect(waived).toMatchObject({ status: "waived", waiverReason: "Counted by hand: the loop is the four feet.", waivedBy: users.checker.name });
     await expect(changeStatus(users.checker, t.id, { action: "reopen", reason: "", version: t.version })).rejects.toMatchObject({ status: 409 });
     const reopened = await changeStatus(users.checker, t.id, { action: "reopen", reason: "", version: waived.version });
     expect(reopened.status).toBe("reopened");
-    const again = await changeStatus(users.checker, t.id, { action: "waive", reason: "Counted by hand: the loop is the four feet.", version: reopened.version });
+    const again = await changeStatus(users.checker, t.id, {
+      action: "waive",
+      reason: "Counted by hand: the loop is the four feet.",
+      version: reopened.version,
+    });
     expect(again.history.map((e) => e.kind)).toEqual(["open", "waive", "reopen", "waive"]);
   });
 
@@ -123,7 +129,10 @@ describe("assigned checker", () => {
     const layoutId = (await createLayout(users.designer, projectId, { name: "Assigned bench", description: "" })).id;
     const rev = await storeRevision(users.designer, layoutId, analysed("breadboard-three-seats.json"));
     const t = (await listThreads(users.manager, layoutId))[0];
-    await expect(changeStatus(other, t.id, { action: "waive", reason: "Not my project, but let me try.", version: t.version })).rejects.toMatchObject({ status: 403, message: expect.stringMatching(/Chen Okafor is the checker/) });
+    await expect(changeStatus(other, t.id, { action: "waive", reason: "Not my project, but let me try.", version: t.version })).rejects.toMatchObject({
+      status: 403,
+      message: expect.stringMatching(/Chen Okafor is the checker/),
+    });
     await requestRelease(users.designer, rev.id);
     await expect(approveRelease(other, rev.id)).rejects.toMatchObject({ status: 403 });
     expect((await addComment(other, t.id, "A second pair of eyes: looks fine.")).author.name).toBe("Sam Ito");
@@ -219,7 +228,14 @@ describe("concurrent review writes on one layout", () => {
     const results = await Promise.allSettled(work);
     expect(results.filter((r) => r.status === "rejected").map((r) => String((r as PromiseRejectedResult).reason))).toEqual([]);
     expect(await deadlocks()).toBe(before);
-    const stored = await knex("comments").whereIn("thread_id", threads.map((t) => t.id)).where("body", "like", "round %").count({ n: "*" }).first();
+    const stored = await knex("comments")
+      .whereIn(
+        "thread_id",
+        threads.map((t) => t.id),
+      )
+      .where("body", "like", "round %")
+      .count({ n: "*" })
+      .first();
     expect(Number(stored!.n)).toBe(6 * threads.length);
     expect((await knex("revisions").where({ layout_id: layoutId }).max({ n: "number" }).first())!.n).toBe(7);
     // waivers under the same load: each one sees the current version and succeeds

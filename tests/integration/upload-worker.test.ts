@@ -33,8 +33,27 @@ function bigChain(bodies: number): Layout {
   const contacts: Layout["contacts"] = [];
   for (let b = 0; b < bodies; b++)
     for (let k = 0; k < 6; k++)
-      contacts.push({ id: `c${b}-${k}`, body: `b${b}`, on: b === 0 ? "ground" : `b${b - 1}`, point: [b * 100 + r() * 50, r() * 50, r() * 50] as Vec3, normal: [r() - 0.5, r() - 0.5, r() - 0.5] as Vec3, sense: "unilateral" });
-  return { format: "mount-layout/1", name: "chain", units: { length: "mm", force: "N" }, gravity: [0, 0, -9.80665], tolerance: 1e-6, intendedFreedoms: 0, bodies: Array.from({ length: bodies }, (_, i) => ({ id: `b${i}` })), materials: [], contacts, loads: [], points: [] };
+      contacts.push({
+        id: `c${b}-${k}`,
+        body: `b${b}`,
+        on: b === 0 ? "ground" : `b${b - 1}`,
+        point: [b * 100 + r() * 50, r() * 50, r() * 50] as Vec3,
+        normal: [r() - 0.5, r() - 0.5, r() - 0.5] as Vec3,
+        sense: "unilateral",
+      });
+  return {
+    format: "mount-layout/1",
+    name: "chain",
+    units: { length: "mm", force: "N" },
+    gravity: [0, 0, -9.80665],
+    tolerance: 1e-6,
+    intendedFreedoms: 0,
+    bodies: Array.from({ length: bodies }, (_, i) => ({ id: `b${i}` })),
+    materials: [],
+    contacts,
+    loads: [],
+    points: [],
+  };
 }
 
 describe("uploadRevision", () => {
@@ -53,7 +72,9 @@ describe("uploadRevision", () => {
   });
 
   it("stores a good file as the next revision with its findings", async () => {
-    const result = await uploadRevision(designer, layoutId, new Uint8Array(readFileSync("examples/breadboard-four-feet.xml")), { fileName: "breadboard-four-feet.xml" });
+    const result = await uploadRevision(designer, layoutId, new Uint8Array(readFileSync("examples/breadboard-four-feet.xml")), {
+      fileName: "breadboard-four-feet.xml",
+    });
     expect(result.ok).toBe(true);
     if (!result.ok) return;
     expect(result.revision).toMatchObject({ number: 2, encoding: "xml" });
@@ -75,7 +96,11 @@ describe("uploadRevision", () => {
   });
 
   it("takes the CSV units given at upload", async () => {
-    const result = await uploadRevision(designer, layoutId, new Uint8Array(readFileSync("examples/mirror-cell-three-vee.csv")), { fileName: "cell.csv", length: "in", force: "lbf" });
+    const result = await uploadRevision(designer, layoutId, new Uint8Array(readFileSync("examples/mirror-cell-three-vee.csv")), {
+      fileName: "cell.csv",
+      length: "in",
+      force: "lbf",
+    });
     expect(result.ok && result.report.units).toEqual({ length: "in", force: "lbf" });
   });
 
@@ -104,7 +129,10 @@ describe("uploadRevision", () => {
   it("refuses other roles (403) and an empty file (located error, like any refused file)", async () => {
     const checker = await knex("users").where({ role: "checker" }).first();
     await expect(uploadRevision(checker, layoutId, new Uint8Array([1]), { fileName: "x.json" })).rejects.toMatchObject({ status: 403 });
-    expect(await uploadRevision(designer, layoutId, new Uint8Array(0), { fileName: "x.json" })).toEqual({ ok: false, errors: [{ location: "file", message: "the file is empty" }] });
+    expect(await uploadRevision(designer, layoutId, new Uint8Array(0), { fileName: "x.json" })).toEqual({
+      ok: false,
+      errors: [{ location: "file", message: "the file is empty" }],
+    });
   });
 
   it("reuses its analysis threads: six uploads in a row run on the same thread, not six new ones", async () => {

@@ -50,7 +50,11 @@ async function session(role: string): Promise<string> {
 
 async function token(role: string): Promise<string> {
   const cookie = await session(role);
-  const res = await fetch(`${base}/api/tokens`, { method: "POST", headers: { cookie, origin: base, "content-type": "application/json" }, body: JSON.stringify({ name: `${runId} ${role}` }) });
+  const res = await fetch(`${base}/api/tokens`, {
+    method: "POST",
+    headers: { cookie, origin: base, "content-type": "application/json" },
+    body: JSON.stringify({ name: `${runId} ${role}` }),
+  });
   if (res.status !== 201) throw new Error(`could not create a ${role} token: ${res.status}`);
   return ((await res.json()) as { token: string }).token;
 }
@@ -120,7 +124,19 @@ const ms = (x: number) => Number(x.toFixed(1));
 function row(kind: string, clients: number) {
   const t = tally(kind);
   const s = t.times.slice().sort((a, b) => a - b);
-  return { mix: kind, clients, requests: s.length, "req/s": Math.round(s.length / seconds), "p50 ms": ms(pct(s, 50)), "p95 ms": ms(pct(s, 95)), "p99 ms": ms(pct(s, 99)), "max ms": ms(s[s.length - 1] ?? NaN), "2xx": t.ok, non2xx: t.non2xx, errors: t.errors };
+  return {
+    mix: kind,
+    clients,
+    requests: s.length,
+    "req/s": Math.round(s.length / seconds),
+    "p50 ms": ms(pct(s, 50)),
+    "p95 ms": ms(pct(s, 95)),
+    "p99 ms": ms(pct(s, 99)),
+    "max ms": ms(s[s.length - 1] ?? NaN),
+    "2xx": t.ok,
+    non2xx: t.non2xx,
+    errors: t.errors,
+  };
 }
 
 async function main() {
@@ -148,19 +164,29 @@ const files = ["examples/breadboard-three-seats.json", "examples/breadboard-four
 async function createRunLayout(designer: string, manager: string): Promise<number> {
   const projects = (await (await fetch(`${base}/api/projects`, { headers: auth(manager) })).json()) as { projects: { id: number; name: string }[] };
   const project = projects.projects.find((p) => p.name === "Interferometer breadboard") ?? projects.projects[0];
-  const res = await fetch(`${base}/api/projects/${project.id}/layouts`, { method: "POST", headers: { ...auth(designer), "content-type": "application/json" }, body: JSON.stringify({ name: `Load run ${runId}`, description: "Created by npm run load; removed at its end." }) });
+  const res = await fetch(`${base}/api/projects/${project.id}/layouts`, {
+    method: "POST",
+    headers: { ...auth(designer), "content-type": "application/json" },
+    body: JSON.stringify({ name: `Load run ${runId}`, description: "Created by npm run load; removed at its end." }),
+  });
   if (res.status !== 201) throw new Error(`could not create the load layout: ${res.status} ${await res.text()}`);
   return ((await res.json()) as { layout: { id: number } }).layout.id;
 }
 
 /** Four feet first: several findings, so several threads to read and comment on. */
 async function firstRevision(layoutId: number, designer: string): Promise<void> {
-  const up = await fetch(`${base}/api/v1/layouts/${layoutId}/revisions`, { method: "POST", headers: { ...auth(designer), "content-type": "application/json", "x-file-name": "four-feet.json" }, body: files[1] });
+  const up = await fetch(`${base}/api/v1/layouts/${layoutId}/revisions`, {
+    method: "POST",
+    headers: { ...auth(designer), "content-type": "application/json", "x-file-name": "four-feet.json" },
+    body: files[1],
+  });
   if (up.status !== 201) throw new Error(`could not upload the first revision: ${up.status}`);
 }
 
 async function drive(layoutId: number, designer: string, checker: string, manager: string, knex: knexLib.Knex) {
-  const threads = ((await (await fetch(`${base}/api/layouts/${layoutId}`, { headers: auth(manager) })).json()) as { threads: { id: number }[] }).threads.map((t) => t.id);
+  const threads = ((await (await fetch(`${base}/api/layouts/${layoutId}`, { headers: auth(manager) })).json()) as { threads: { id: number }[] }).threads.map(
+    (t) => t.id,
+  );
   const pick = <T>(xs: T[]) => xs[Math.floor(Math.random() * xs.length)];
   const think = (pacedMs: number) => (mode === "paced" ? pacedMs : 0);
   const deadline = performance.now() + seconds * 1000;
@@ -169,11 +195,23 @@ async function drive(layoutId: number, designer: string, checker: string, manage
   const findings = (): Call => ({ kind: "findings API", method: "GET", path: `/api/v1/layouts/${layoutId}/findings?status=open`, headers: auth(manager) });
   const thread = (): Call => ({ kind: "thread reads", method: "GET", path: `/api/threads/${pick(threads)}`, headers: auth(manager) });
   let commentN = 0;
-  const comment = (): Call => ({ kind: "comments", method: "POST", path: `/api/threads/${pick(threads)}/comments`, headers: { ...auth(checker), "content-type": "application/json" }, body: JSON.stringify({ body: `${runId} comment ${++commentN}` }) });
+  const comment = (): Call => ({
+    kind: "comments",
+    method: "POST",
+    path: `/api/threads/${pick(threads)}/comments`,
+    headers: { ...auth(checker), "content-type": "application/json" },
+    body: JSON.stringify({ body: `${runId} comment ${++commentN}` }),
+  });
   let uploadN = 0;
   const upload = (): Call => {
     const n = ++uploadN;
-    return { kind: "uploads", method: "POST", path: `/api/v1/layouts/${layoutId}/revisions`, headers: { ...auth(designer), "content-type": "application/json", "x-file-name": `${runId}-${n}.json` }, body: files[n % 2] };
+    return {
+      kind: "uploads",
+      method: "POST",
+      path: `/api/v1/layouts/${layoutId}/revisions`,
+      headers: { ...auth(designer), "content-type": "application/json", "x-file-name": `${runId}-${n}.json` },
+      body: files[n % 2],
+    };
   };
 
   const clients: Promise<void>[] = [];
@@ -201,7 +239,9 @@ async function drive(layoutId: number, designer: string, checker: string, manage
   for (const [k, t] of kinds.map((k) => [k, tally(k)] as const)) if (t.non2xx) console.log(`${k}: answers other than 2xx: ${JSON.stringify(t.statuses)}`);
   if (!findingsOnly) {
     const storedComments = Number((await knex("comments").where("body", "like", `${runId} comment %`).count({ n: "*" }).first())!.n);
-    const storedUploads = Number((await knex("revisions").where({ layout_id: layoutId }).where("file_name", "like", `${runId}-%`).count({ n: "*" }).first())!.n);
+    const storedUploads = Number(
+      (await knex("revisions").where({ layout_id: layoutId }).where("file_name", "like", `${runId}-%`).count({ n: "*" }).first())!.n,
+    );
     const c = tally("comments").ok;
     const u = tally("uploads").ok;
     console.log(`comments: ${c} accepted, ${storedComments} in the database; uploads: ${u} accepted, ${storedUploads} in the database`);
@@ -216,7 +256,8 @@ async function revokeRunTokens(tokens: string[]): Promise<void> {
   for (const t of tokens) {
     const headers = auth(t);
     const list = (await (await fetch(`${base}/api/tokens`, { headers })).json()) as { tokens: { id: number; name: string; revokedAt: string | null }[] };
-    for (const x of list.tokens.filter((x) => x.name.startsWith(runId) && !x.revokedAt)) await fetch(`${base}/api/tokens/${x.id}`, { method: "DELETE", headers });
+    for (const x of list.tokens.filter((x) => x.name.startsWith(runId) && !x.revokedAt))
+      await fetch(`${base}/api/tokens/${x.id}`, { method: "DELETE", headers });
   }
 }
 

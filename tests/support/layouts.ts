@@ -56,7 +56,7 @@ export function rng(seed: number): () => number {
 /** A random layout: `bodies` bodies in a chain or tree, 6–7 contacts a body, with a degenerate pattern mixed in. */
 export function randomLayout(seed: number, bodies: number): Layout {
   const r = rng(seed);
-  const pick = <T,>(xs: T[]) => xs[Math.floor(r() * xs.length)];
+  const pick = <T>(xs: T[]) => xs[Math.floor(r() * xs.length)];
   const rv = (s = 100): Vec3 => [(r() - 0.5) * s, (r() - 0.5) * s, (r() - 0.5) * s];
   const ids = Array.from({ length: bodies }, (_, i) => `b${i}`);
   const mode = pick(["generic", "parallel", "axis", "coplanar", "generic"]);

@@ -6,12 +6,18 @@ export function mutate(text: string, r: () => number): string {
   const len = 1 + Math.floor(r() * 12);
   const junk = ['"', ",", "{", "}", "[", "]", "<", ">", "NaN", "1e999", "-", "\u0000", "é", "\n", " ", "0", "null", "&amp;", "ground"];
   switch (Math.floor(r() * 7)) {
-    case 0: return text.slice(0, pos) + text.slice(pos + len);
-    case 1: return text.slice(0, pos) + text.slice(pos, pos + len) + text.slice(pos);
-    case 2: return text.slice(0, pos) + junk[Math.floor(r() * junk.length)] + text.slice(pos);
-    case 3: return text.replace(/\d/g, (d) => (r() < 0.05 ? String((Number(d) + 1 + Math.floor(r() * 8)) % 10) : d));
-    case 4: return text.slice(0, pos);
-    case 5: return text.replace(/"(body|on)": "[^"]*"/, `"$1": "nowhere"`);
+    case 0:
+      return text.slice(0, pos) + text.slice(pos + len);
+    case 1:
+      return text.slice(0, pos) + text.slice(pos, pos + len) + text.slice(pos);
+    case 2:
+      return text.slice(0, pos) + junk[Math.floor(r() * junk.length)] + text.slice(pos);
+    case 3:
+      return text.replace(/\d/g, (d) => (r() < 0.05 ? String((Number(d) + 1 + Math.floor(r() * 8)) % 10) : d));
+    case 4:
+      return text.slice(0, pos);
+    case 5:
+      return text.replace(/"(body|on)": "[^"]*"/, `"$1": "nowhere"`);
     default: {
       const q = Math.floor(r() * text.length);
       const a = text.slice(pos, pos + len);

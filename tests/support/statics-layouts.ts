@@ -13,7 +13,14 @@ export function rawLayout(raw: Record<string, unknown>): Layout {
 export function plate(pts: [number, number][], load?: [number, number, number], k?: number, extra: Record<string, unknown> = {}): Layout {
   return rawLayout({
     bodies: [{ id: "plate" }],
-    contacts: pts.map(([x, y], i) => ({ id: `S${i + 1}`, body: "plate", feature: `seat-${i + 1}`, point: [x, y, 0], normal: [0, 0, 1], ...(k ? { stiffness: k } : {}) })),
+    contacts: pts.map(([x, y], i) => ({
+      id: `S${i + 1}`,
+      body: "plate",
+      feature: `seat-${i + 1}`,
+      point: [x, y, 0],
+      normal: [0, 0, 1],
+      ...(k ? { stiffness: k } : {}),
+    })),
     loads: load ? [{ id: "P", body: "plate", force: [0, 0, -load[2]], point: [load[0], load[1], 0] }] : [],
     ...extra,
   });

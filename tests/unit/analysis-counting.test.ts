@@ -38,7 +38,16 @@ describe("counting (reference-checks.md, Counting)", () => {
   );
 
   it("table on four vertical legs: rank 3; free x, y and rotation about z; one self-stress (1, −1, 1, −1)/2 [D]", () => {
-    const a = analyseConstraint(makeLayout(legs([[0, 0], [600, 0], [600, 450], [0, 450]])));
+    const a = analyseConstraint(
+      makeLayout(
+        legs([
+          [0, 0],
+          [600, 0],
+          [600, 450],
+          [0, 450],
+        ]),
+      ),
+    );
     expect(a.counts).toMatchObject({ rank: 3, freedoms: 3, redundancies: 1, grubler: 2 });
     const kinds = a.freeMotions.map((m) => m.screws.part);
     expect(kinds[0]).toMatchObject({ kind: "translation", direction: [1, 0, 0] });
@@ -53,7 +62,15 @@ describe("counting (reference-checks.md, Counting)", () => {
   });
 
   it("three-legged stool: rank 3, no self-stress [D]", () => {
-    const a = analyseConstraint(makeLayout(legs([[0, 0], [300, 0], [0, 200]])));
+    const a = analyseConstraint(
+      makeLayout(
+        legs([
+          [0, 0],
+          [300, 0],
+          [0, 200],
+        ]),
+      ),
+    );
     expect(a.counts).toMatchObject({ rank: 3, freedoms: 3, redundancies: 0 });
     expect(a.selfStress).toEqual([]);
   });
@@ -129,7 +146,9 @@ describe("screws (reference-checks.md, Screws)", () => {
           const p = c.point;
           const pxn = [p[1] * n[2] - p[2] * n[1], p[2] * n[0] - p[0] * n[2], p[0] * n[1] - p[1] * n[0]];
           const scaleRef = Math.hypot(...t.v) + Math.hypot(...t.omega) * a.length * 10;
-          expect(Math.abs(n[0] * t.v[0] + n[1] * t.v[1] + n[2] * t.v[2] + pxn[0] * t.omega[0] + pxn[1] * t.omega[1] + pxn[2] * t.omega[2]) / scaleRef).toBeLessThan(1e-9);
+          expect(
+            Math.abs(n[0] * t.v[0] + n[1] * t.v[1] + n[2] * t.v[2] + pxn[0] * t.omega[0] + pxn[1] * t.omega[1] + pxn[2] * t.omega[2]) / scaleRef,
+          ).toBeLessThan(1e-9);
         }
       }
     }
@@ -149,7 +168,16 @@ describe("screws (reference-checks.md, Screws)", () => {
   });
 
   it("the characteristic length is reported and the moment columns are scaled by it (reference-checks.md: rank with mixed units needs one) [C: conventional]", () => {
-    const a = analyseConstraint(makeLayout(legs([[0, 0], [600, 0], [600, 450], [0, 450]])));
+    const a = analyseConstraint(
+      makeLayout(
+        legs([
+          [0, 0],
+          [600, 0],
+          [600, 450],
+          [0, 450],
+        ]),
+      ),
+    );
     expect(a.length).toBeCloseTo(375, 12); // half the diagonal: sqrt(300² + 225²)
     expect(a.centroid).toEqual([300, 225, 0]);
     // rows [y′/L, −x′/L, 0, 0, 0, 1]: AᵀA = diag(Σy′²/L², Σx′²/L², 4) = diag(1.44, 2.56, 4), so σ = 1.2, 1.6, 2 and σ_r/σ_max = 0.6 [D]

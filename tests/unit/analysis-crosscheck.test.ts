@@ -60,7 +60,9 @@ function svdTall(A: M): { S: number[]; U: M; V: M } {
     }
   }
   if (!S.length) throw new Error("numeric.svd failed on every row order");
-  const order = S.map((s: number, i: number) => [s, i]).sort((a: number[], b: number[]) => b[0] - a[0]).map((x: number[]) => x[1]);
+  const order = S.map((s: number, i: number) => [s, i])
+    .sort((a: number[], b: number[]) => b[0] - a[0])
+    .map((x: number[]) => x[1]);
   const pick = (X: M) => X.map((row) => order.map((i: number) => row[i]));
   return { S: order.map((i: number) => S[i]), U: pick(U), V: pick(V) };
 }
@@ -76,9 +78,7 @@ function spaces(A: M, m: number, n: number, tol: number) {
 
 /** Projector onto the complement of span(B) (B: dim × r with orthonormal columns). */
 function complementProjector(B: M, dim: number): M {
-  return Array.from({ length: dim }, (_, i) =>
-    Array.from({ length: dim }, (_, j) => (i === j ? 1 : 0) - B[i].reduce((s, v, k) => s + v * B[j][k], 0)),
-  );
+  return Array.from({ length: dim }, (_, i) => Array.from({ length: dim }, (_, j) => (i === j ? 1 : 0) - B[i].reduce((s, v, k) => s + v * B[j][k], 0)));
 }
 
 /** Projector onto the span of k vectors of length dim (k ≤ dim). */
@@ -92,8 +92,7 @@ function spanProjector(vectors: M, dim: number): M {
  * A layout whose singular values sit in the band around the rank threshold has no well-defined rank
  * (both libraries are right within rounding); such layouts are checked only for a rank inside the band.
  */
-const clearGap = (S: number[], r: number, tol: number) =>
-  (r === 0 || S[r - 1] / S[0] > 10 * tol) && (r >= S.length || S[r] / S[0] < tol / 10);
+const clearGap = (S: number[], r: number, tol: number) => (r === 0 || S[r - 1] / S[0] > 10 * tol) && (r >= S.length || S[r] / S[0] < tol / 10);
 
 const tally = { clear: 0, banded: 0 };
 

@@ -43,7 +43,12 @@ function expectSame(a: ConstraintAnalysis, b: ConstraintAnalysis, toFirst: (p: V
       if (sa.pitch !== null) expect(sb.pitch! * lengthRatio).toBeCloseTo(sa.pitch, 6);
     }
   });
-  expect(b.selfStress).toEqual(a.selfStress.map((s) => ({ pivot: s.pivot, forces: expect.objectContaining(Object.fromEntries(Object.entries(s.forces).map(([k, v]) => [k, expect.closeTo(v, 8)]))) })));
+  expect(b.selfStress).toEqual(
+    a.selfStress.map((s) => ({
+      pivot: s.pivot,
+      forces: expect.objectContaining(Object.fromEntries(Object.entries(s.forces).map(([k, v]) => [k, expect.closeTo(v, 8)]))),
+    })),
+  );
 }
 
 describe.each(examples)("%s", (name) => {

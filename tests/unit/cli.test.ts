@@ -70,7 +70,10 @@ describe("CLI behaviour", () => {
   });
 
   it("npm run --silent check prints exactly one JSON object", () => {
-    const out = execFileSync("npm", ["run", "--silent", "check", "--", "examples/mirror-cell-three-vee.json", "--json"], { encoding: "utf8", stdio: ["ignore", "pipe", "ignore"] });
+    const out = execFileSync("npm", ["run", "--silent", "check", "--", "examples/mirror-cell-three-vee.json", "--json"], {
+      encoding: "utf8",
+      stdio: ["ignore", "pipe", "ignore"],
+    });
     expect(JSON.parse(out).counts).toMatchObject({ rank: 6, freedoms: 0, redundancies: 0 });
   });
 });

@@ -15,20 +15,25 @@ function render(name: string, emphasis?: Parameters<typeof LayoutDrawings>[0]["e
 }
 
 describe("LayoutDrawings", () => {
-  it.each(["breadboard-four-feet", "breadboard-three-seats", "mirror-cell-three-vee", "instrument-plate-socket-vee-flat", "flexure-stage-one-freedom", "detector-sled-hidden-count", "flexure-stage-full-blades"])(
-    "%s: four views, every contact and its normal in each",
-    (name) => {
-      const { html, layout } = render(name);
-      expect(count(html, "data-view")).toBe(4);
-      // flexure rows are drawn as contacts too, and each flexure as an element (analysis.md §10)
-      const rows = expandFlexures(layout).contacts.length;
-      expect(count(html, "data-contact")).toBe(4 * rows);
-      expect(count(html, "data-normal")).toBe(4 * rows);
-      expect(count(html, "data-flexure")).toBe(4 * (layout.flexures ?? []).length);
-      expect(html).toContain('data-testid="scale-bar"');
-      expect(html).toMatch(/\d+ mm<\/text>/);
-    },
-  );
+  it.each([
+    "breadboard-four-feet",
+    "breadboard-three-seats",
+    "mirror-cell-three-vee",
+    "instrument-plate-socket-vee-flat",
+    "flexure-stage-one-freedom",
+    "detector-sled-hidden-count",
+    "flexure-stage-full-blades",
+  ])("%s: four views, every contact and its normal in each", (name) => {
+    const { html, layout } = render(name);
+    expect(count(html, "data-view")).toBe(4);
+    // flexure rows are drawn as contacts too, and each flexure as an element (analysis.md §10)
+    const rows = expandFlexures(layout).contacts.length;
+    expect(count(html, "data-contact")).toBe(4 * rows);
+    expect(count(html, "data-normal")).toBe(4 * rows);
+    expect(count(html, "data-flexure")).toBe(4 * (layout.flexures ?? []).length);
+    expect(html).toContain('data-testid="scale-bar"');
+    expect(html).toMatch(/\d+ mm<\/text>/);
+  });
 
   it("four feet: three free motions (two translations and a rotation) drawn in each view, four loop contacts", () => {
     const { html } = render("breadboard-four-feet");
@@ -65,7 +70,10 @@ describe("LayoutDrawings", () => {
   it("draws moved contacts' earlier positions (revision diff) in every view", () => {
     const layout = example("breadboard-three-seats");
     const { report } = runEngine(layout);
-    const ghosts = [{ id: "S1a", point: [40, 40, -4.49] as [number, number, number] }, { id: "S2b", point: [560, 40, -4.49] as [number, number, number] }];
+    const ghosts = [
+      { id: "S1a", point: [40, 40, -4.49] as [number, number, number] },
+      { id: "S2b", point: [560, 40, -4.49] as [number, number, number] },
+    ];
     const html = renderToStaticMarkup(<LayoutDrawings layout={layout} report={report} ghosts={ghosts} />);
     expect(count(html, "data-ghost")).toBe(2 * 4);
     expect(html).toContain("S1a (before)");
@@ -108,6 +116,8 @@ describe("LayoutDrawings", () => {
     const layout = example("flexure-stage-full-blades");
     const row = expandFlexures(layout).contacts.find((c) => c.id === "blade-A.s");
     // in-plane stiffness E·t·w³/ℓ³ = 200 GPa · 0.25 mm · (60 mm)³ / (40 mm)³ = 168 750 N/mm (§10, derived)
-    expect(flexureReadout(layout, "blade-A.s", row, "mm", "N")).toBe(" · blade blade-A (row s): length 40 mm, width 60 mm, thickness 0.25 mm, blade-steel, stiffness 168750 N/mm");
+    expect(flexureReadout(layout, "blade-A.s", row, "mm", "N")).toBe(
+      " · blade blade-A (row s): length 40 mm, width 60 mm, thickness 0.25 mm, blade-steel, stiffness 168750 N/mm",
+    );
   });
 });

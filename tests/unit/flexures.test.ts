@@ -37,7 +37,12 @@ describe("flexure counts", () => {
   // qualitative]; one redundancy (both blades constrain the same in-plane rotation) [D]
   it("two parallel blades: 1 freedom (translation normal to the blades), 1 redundancy", () => {
     const { report } = runEngine(
-      rawLayout({ bodies: [{ id: "stage" }], materials, contacts: [], flexures: [blade("front", [0, 0, 0], [0, 0, 40]), blade("back", [60, 0, 0], [60, 0, 40])] }),
+      rawLayout({
+        bodies: [{ id: "stage" }],
+        materials,
+        contacts: [],
+        flexures: [blade("front", [0, 0, 0], [0, 0, 40]), blade("back", [60, 0, 0], [60, 0, 40])],
+      }),
     );
     expect(report.counts).toMatchObject({ rank: 5, freedoms: 1, redundancies: 1 });
     const s = report.freeMotions[0].screws.stage;
@@ -52,7 +57,15 @@ describe("flexure counts", () => {
     const wires = [0, 1, 2, 3, 4, 5].map((i) => {
       const base = ((Math.floor(i / 2) * 120 + (i % 2 ? 15 : -15)) * Math.PI) / 180;
       const top = ((Math.floor(i / 2) * 120 + (i % 2 ? 60 : -60)) * Math.PI) / 180;
-      return { id: `w${i + 1}`, kind: "wire", body: "platform", from: [100 * Math.cos(base), 100 * Math.sin(base), 0], to: [60 * Math.cos(top), 60 * Math.sin(top), 80], diameter: 1, material: "spring-steel" };
+      return {
+        id: `w${i + 1}`,
+        kind: "wire",
+        body: "platform",
+        from: [100 * Math.cos(base), 100 * Math.sin(base), 0],
+        to: [60 * Math.cos(top), 60 * Math.sin(top), 80],
+        diameter: 1,
+        material: "spring-steel",
+      };
     });
     const { report } = runEngine(rawLayout({ bodies: [{ id: "platform" }], materials, contacts: [], flexures: wires }));
     expect(report.counts).toMatchObject({ contacts: 6, rank: 6, freedoms: 0, redundancies: 0 });
@@ -71,15 +84,31 @@ describe("flexure stiffness", () => {
     expect(k[0]).toBeCloseTo(((E * w * t) / (2 * ell)) * 1e-3, 6);
     expect(k[1]).toBeCloseTo(k[0], 12);
     expect(k[2]).toBeCloseTo(((E * t * w ** 3) / ell ** 3) * 1e-3, 6);
-    const wire = rawLayout({ bodies: [{ id: "s" }], materials, contacts: [], flexures: [{ id: "w", kind: "wire", body: "s", from: [0, 0, 0], to: [0, 0, 50], diameter: 0.5, material: "spring-steel" }] });
+    const wire = rawLayout({
+      bodies: [{ id: "s" }],
+      materials,
+      contacts: [],
+      flexures: [{ id: "w", kind: "wire", body: "s", from: [0, 0, 0], to: [0, 0, 50], diameter: 0.5, material: "spring-steel" }],
+    });
     expect(flexureStiffness(wire, wire.flexures![0])![0]).toBeCloseTo(((E * Math.PI * 0.5e-3 ** 2) / 4 / 50e-3) * 1e-3, 6);
   });
 
   it("unit conversion round-trips: the same wire in inches and lbf gives the same stiffness in SI", () => {
     const inch = 25.4;
     const lbf = 4.4482216152605;
-    const mm = rawLayout({ bodies: [{ id: "s" }], materials, contacts: [], flexures: [{ id: "w", kind: "wire", body: "s", from: [0, 0, 0], to: [0, 0, 50.8], diameter: 0.508, material: "spring-steel" }] });
-    const ins = rawLayout({ units: { length: "in", force: "lbf" }, bodies: [{ id: "s" }], materials, contacts: [], flexures: [{ id: "w", kind: "wire", body: "s", from: [0, 0, 0], to: [0, 0, 2], diameter: 0.02, material: "spring-steel" }] });
+    const mm = rawLayout({
+      bodies: [{ id: "s" }],
+      materials,
+      contacts: [],
+      flexures: [{ id: "w", kind: "wire", body: "s", from: [0, 0, 0], to: [0, 0, 50.8], diameter: 0.508, material: "spring-steel" }],
+    });
+    const ins = rawLayout({
+      units: { length: "in", force: "lbf" },
+      bodies: [{ id: "s" }],
+      materials,
+      contacts: [],
+      flexures: [{ id: "w", kind: "wire", body: "s", from: [0, 0, 0], to: [0, 0, 2], diameter: 0.02, material: "spring-steel" }],
+    });
     const kMm = flexureStiffness(mm, mm.flexures![0])![0] * 1e3; // N/m
     const kIn = (flexureStiffness(ins, ins.flexures![0])![0] * lbf) / (inch * 1e-3); // N/m
     expect(kIn).toBeCloseTo(kMm, 3);
@@ -115,8 +144,24 @@ describe("flexure equivalence and encodings", () => {
     const wHat: Vec3 = [Math.SQRT1_2, Math.SQRT1_2, 0];
     const half = 12.5;
     layout.contacts.push(
-      { id: "leaf.a", body: "stage", on: "ground", point: [20 + half * wHat[0], 20 + half * wHat[1], 0], normal: [0, 0, 1], sense: "bilateral", stiffness: k[0] },
-      { id: "leaf.b", body: "stage", on: "ground", point: [20 - half * wHat[0], 20 - half * wHat[1], 0], normal: [0, 0, 1], sense: "bilateral", stiffness: k[1] },
+      {
+        id: "leaf.a",
+        body: "stage",
+        on: "ground",
+        point: [20 + half * wHat[0], 20 + half * wHat[1], 0],
+        normal: [0, 0, 1],
+        sense: "bilateral",
+        stiffness: k[0],
+      },
+      {
+        id: "leaf.b",
+        body: "stage",
+        on: "ground",
+        point: [20 - half * wHat[0], 20 - half * wHat[1], 0],
+        normal: [0, 0, 1],
+        sense: "bilateral",
+        stiffness: k[1],
+      },
       { id: "leaf.s", body: "stage", on: "ground", point: [20, 20, 0], normal: wHat, sense: "bilateral", stiffness: k[2] },
     );
     return layout;

@@ -24,8 +24,18 @@ const refused = (r: ParseResult) => {
 };
 
 const corpus: [string, Uint8Array, string?][] = [
-  ["billion laughs", enc('<?xml version="1.0"?><!DOCTYPE lolz [<!ENTITY lol "lol"><!ENTITY lol2 "&lol;&lol;&lol;&lol;">]><mount-layout format="mount-layout/1">&lol2;</mount-layout>'), "xml"],
-  ["external entity", enc('<?xml version="1.0"?><!DOCTYPE x [<!ENTITY xxe SYSTEM "file:///etc/passwd">]><mount-layout format="mount-layout/1" name="&xxe;"/>'), "xml"],
+  [
+    "billion laughs",
+    enc(
+      '<?xml version="1.0"?><!DOCTYPE lolz [<!ENTITY lol "lol"><!ENTITY lol2 "&lol;&lol;&lol;&lol;">]><mount-layout format="mount-layout/1">&lol2;</mount-layout>',
+    ),
+    "xml",
+  ],
+  [
+    "external entity",
+    enc('<?xml version="1.0"?><!DOCTYPE x [<!ENTITY xxe SYSTEM "file:///etc/passwd">]><mount-layout format="mount-layout/1" name="&xxe;"/>'),
+    "xml",
+  ],
   ["parameter entity", enc('<!DOCTYPE x [<!ENTITY % p SYSTEM "http://example.invalid/x.dtd"> %p;]><mount-layout/>'), "xml"],
   ["10 MB body", new Uint8Array(10 * 1024 * 1024 + 3).fill(0x20), "json"],
   ["deeply nested JSON", enc("[".repeat(500000) + "]".repeat(500000)), "json"],
@@ -41,7 +51,13 @@ const corpus: [string, Uint8Array, string?][] = [
   ["UTF-16 text", new Uint8Array([0xff, 0xfe, 0x7b, 0x00, 0x7d, 0x00]), "json"],
   ["Latin-1 text", new Uint8Array([0x69, 0x64, 0x0a, 0xe9, 0x2c, 0x31]), "csv"],
   ["empty file", new Uint8Array(0), "json"],
-  ["JSON prototype pollution keys", enc('{"format":"mount-layout/1","__proto__":{"polluted":1},"bodies":[{"id":"constructor"}],"contacts":[{"id":"__proto__","body":"constructor","point":[0,0,0],"normal":[0,0,0]}]}'), "json"],
+  [
+    "JSON prototype pollution keys",
+    enc(
+      '{"format":"mount-layout/1","__proto__":{"polluted":1},"bodies":[{"id":"constructor"}],"contacts":[{"id":"__proto__","body":"constructor","point":[0,0,0],"normal":[0,0,0]}]}',
+    ),
+    "json",
+  ],
 ];
 
 describe("hostile corpus", () => {

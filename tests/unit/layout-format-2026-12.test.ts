@@ -26,14 +26,24 @@ describe("JSON: new fields refused with their location", () => {
     ["blade of zero thickness", base({ flexures: [{ ...blade, thickness: 0 }] }), "/flexures/0/thickness", /greater than zero/],
     ["negative diameter", base({ flexures: [{ ...wire, diameter: -1 }] }), "/flexures/0/diameter", /greater than zero/],
     ["flexure id equal to a contact id", base({ flexures: [{ ...wire, id: "c1" }] }), "/flexures/0/id", /collides/],
-    ["blade row id equal to a contact id", base({ contacts: [{ id: "leaf.s", body: "part", point: [0, 0, 0], normal: [0, 0, 1] }], flexures: [blade] }), "/flexures/0/id", /row leaf\.s/],
+    [
+      "blade row id equal to a contact id",
+      base({ contacts: [{ id: "leaf.s", body: "part", point: [0, 0, 0], normal: [0, 0, 1] }], flexures: [blade] }),
+      "/flexures/0/id",
+      /row leaf\.s/,
+    ],
     ["flexure with an unknown material", base({ flexures: [{ ...wire, material: "unobtainium" }] }), "/flexures/0/material", /neither built in/],
     ["flexure on an undeclared body", base({ flexures: [{ ...wire, on: "bench" }] }), "/flexures/0/on", /not declared/],
     ["body with an unknown material", base({ bodies: [{ id: "part", material: "cheese" }] }), "/bodies/0/material", /neither built in/],
     ["unknown ground material", base({ groundMaterial: "cheese" }), "/groundMaterial", /neither built in/],
     ["negative expansion", base({ materials: [{ id: "m", expansionPerK: -1e-6 }] }), "/materials/0/expansionPerK", /negative/],
     ["swing of zero", base({ temperatureSwing: 0 }), "/temperatureSwing", /greater than zero/],
-    ["negative scatter", base({ contacts: [{ id: "c1", body: "part", point: [0, 0, 0], normal: [0, 0, 1], scatter: -0.1 }] }), "/contacts/0/scatter", /negative/],
+    [
+      "negative scatter",
+      base({ contacts: [{ id: "c1", body: "part", point: [0, 0, 0], normal: [0, 0, 1], scatter: -0.1 }] }),
+      "/contacts/0/scatter",
+      /negative/,
+    ],
     ["negative default scatter", base({ defaultScatter: -1 }), "/defaultScatter", /negative/],
     ["zero allowance", base({ points: [{ id: "p", body: "part", point: [0, 0, 0], allowance: 0 }] }), "/points/0/allowance", /greater than zero/],
   ];
@@ -91,7 +101,9 @@ describe("XML and CSV: new attributes and columns", () => {
   });
 
   it("locates a bad flexure attribute by element and attribute", () => {
-    const e = errs(parseLayoutText(xml('<flexure id="leaf" kind="blade" body="part" root="0 0 0" tip="0 0 40" width-direction="0 0 1" width="25"/>'), { encoding: "xml" }));
+    const e = errs(
+      parseLayoutText(xml('<flexure id="leaf" kind="blade" body="part" root="0 0 0" tip="0 0 40" width-direction="0 0 1" width="25"/>'), { encoding: "xml" }),
+    );
     expect(e[0].location).toBe("mount-layout/flexure[1] @width-direction");
     expect(e[0].message).toMatch(/parallel/);
   });

@@ -47,9 +47,41 @@ describe("JSON reader", () => {
     ["negative stiffness", base({}, { stiffness: -5 }), "/contacts/0/stiffness", /greater than zero/],
     ["bad length unit", base({ units: { length: "cm" } }), "/units/length", /m, mm, um, in/],
     ["mass without centre", base({ bodies: [{ id: "part", mass: 2 }] }), "/bodies/0/centerOfMass", /required when mass/],
-    ["unknown material", base({}, { hertz: { radii: [[5, 5], [null, null]], materials: ["unobtainium", "bearing-steel"] } }), "/contacts/0/hertz/materials/0", /neither built in/],
+    [
+      "unknown material",
+      base(
+        {},
+        {
+          hertz: {
+            radii: [
+              [5, 5],
+              [null, null],
+            ],
+            materials: ["unobtainium", "bearing-steel"],
+          },
+        },
+      ),
+      "/contacts/0/hertz/materials/0",
+      /neither built in/,
+    ],
     ["built-in material redefined", base({ materials: [{ id: "alumina", youngsModulusGPa: 300, poissonRatio: 0.2 }] }), "/materials/0/id", /built-in/],
-    ["zero radius", base({}, { hertz: { radii: [[0, 5], [null, null]], materials: ["alumina", "alumina"] } }), "/contacts/0/hertz/radii/0/0", /zero/],
+    [
+      "zero radius",
+      base(
+        {},
+        {
+          hertz: {
+            radii: [
+              [0, 5],
+              [null, null],
+            ],
+            materials: ["alumina", "alumina"],
+          },
+        },
+      ),
+      "/contacts/0/hertz/radii/0/0",
+      /zero/,
+    ],
     ["load on unknown body", base({ loads: [{ id: "l", body: "x", force: [0, 0, 1], point: [0, 0, 0] }] }), "/loads/0/body", /not declared/],
     ["load case names unknown load", base({ loadCases: [{ id: "op", loads: ["nope"] }] }), "/loadCases/0/loads/0", /not declared/],
     ["negative intended freedoms", base({ intendedFreedoms: -1 }), "/intendedFreedoms", /negative/],
@@ -82,7 +114,11 @@ describe("JSON reader", () => {
   });
 
   it("refuses a body joined to itself", () => {
-    const text = JSON.stringify({ format: "mount-layout/1", bodies: [{ id: "p" }], contacts: [{ id: "a", body: "p", on: "p", point: [0, 0, 0], normal: [0, 0, 1] }] });
+    const text = JSON.stringify({
+      format: "mount-layout/1",
+      bodies: [{ id: "p" }],
+      contacts: [{ id: "a", body: "p", on: "p", point: [0, 0, 0], normal: [0, 0, 1] }],
+    });
     expect(errs(parseLayoutText(text))[0]).toMatchObject({ location: "/contacts/0/on" });
   });
 
@@ -133,10 +169,11 @@ describe("XML reader", () => {
   });
 
   it("gives no warning for any example file", () => {
-    for (const f of ["breadboard-three-seats", "instrument-plate-socket-vee-flat"]) for (const e of ["json", "xml"]) {
-      const r = parseLayoutText(readFileSync(`examples/${f}.${e}`, "utf8"), { fileName: `${f}.${e}` });
-      expect(r.ok && r.warnings).toEqual([]);
-    }
+    for (const f of ["breadboard-three-seats", "instrument-plate-socket-vee-flat"])
+      for (const e of ["json", "xml"]) {
+        const r = parseLayoutText(readFileSync(`examples/${f}.${e}`, "utf8"), { fileName: `${f}.${e}` });
+        expect(r.ok && r.warnings).toEqual([]);
+      }
   });
 
   it("refuses a DOCTYPE and names its line", () => {
@@ -159,7 +196,12 @@ describe("XML reader", () => {
     ["unknown body", good.replace('body="p" on', 'body="q" on'), "mount-layout/contact[1] @body", /'q' is not declared/],
     ["unknown element", good + "\n<spring id='s'/>", "mount-layout/spring[1]", /unknown element/],
     ["bad mass", '<body id="p" mass="heavy" center-of-mass="0 0 0"/>', "mount-layout/body[1] @mass", /not a number/],
-    ["bad hertz radii", '<body id="p"/><contact id="a" body="p" point="0 0 0" normal="0 0 1"><hertz body-radii="5 round" on-radii="flat flat" materials="alumina alumina"/></contact>', "mount-layout/contact[1]/hertz @body-radii", /not a number/],
+    [
+      "bad hertz radii",
+      '<body id="p"/><contact id="a" body="p" point="0 0 0" normal="0 0 1"><hertz body-radii="5 round" on-radii="flat flat" materials="alumina alumina"/></contact>',
+      "mount-layout/contact[1]/hertz @body-radii",
+      /not a number/,
+    ],
   ];
   it.each(cases)("%s → located error", (_n, body, location, message) => {
     const e = errs(parseLayoutText(xml(body)));
@@ -175,7 +217,9 @@ describe("XML reader", () => {
 describe("CSV reader", () => {
   const header = "id,body,on,x,y,z,nx,ny,nz,sense,feature";
   it("declares bodies in order of first appearance and takes units from the options", () => {
-    const l = ok(parseLayoutText(`${header}\na,top,mid,0,0,0,0,0,1,,\nb,mid,ground,1,0,0,0,0,1,bilateral,f1\n`, { encoding: "csv", length: "in", force: "kN" }));
+    const l = ok(
+      parseLayoutText(`${header}\na,top,mid,0,0,0,0,0,1,,\nb,mid,ground,1,0,0,0,0,1,bilateral,f1\n`, { encoding: "csv", length: "in", force: "kN" }),
+    );
     expect(l.bodies.map((b) => b.id)).toEqual(["top", "mid"]);
     expect(l.units).toEqual({ length: "in", force: "kN" });
     expect(l.contacts[1]).toMatchObject({ sense: "bilateral", feature: "f1" });

@@ -13,7 +13,11 @@ describe("projections", () => {
     expect(project(p, view("side"))).toEqual([20, 30]);
   });
   it("isometric: the three unit axes project to equal lengths √(2/3) (isometric projection, common drafting practice)", () => {
-    for (const axis of [[1, 0, 0], [0, 1, 0], [0, 0, 1]] as Vec3[]) {
+    for (const axis of [
+      [1, 0, 0],
+      [0, 1, 0],
+      [0, 0, 1],
+    ] as Vec3[]) {
       const [x, y] = project(axis, view("axonometric"));
       expect(Math.hypot(x, y)).toBeCloseTo(Math.sqrt(2 / 3), 12);
     }
@@ -32,7 +36,13 @@ describe("projections", () => {
 
 describe("fit", () => {
   it("keeps every point inside the margins and flips y for SVG", () => {
-    const pts: [number, number][] = [[0, 0], [600, 0], [600, 450], [0, 450], [300, 225]];
+    const pts: [number, number][] = [
+      [0, 0],
+      [600, 0],
+      [600, 450],
+      [0, 450],
+      [300, 225],
+    ];
     const f = fitPoints(pts, 400, 300, 20);
     for (const q of pts) {
       const [x, y] = toSvg(f, q);
@@ -46,12 +56,28 @@ describe("fit", () => {
   it("survives a single point and collinear points", () => {
     const one = fitPoints([[5, 5]], 200, 200);
     expect(Number.isFinite(one.scale)).toBe(true);
-    const line = fitPoints([[0, 0], [100, 0]], 200, 200, 10);
+    const line = fitPoints(
+      [
+        [0, 0],
+        [100, 0],
+      ],
+      200,
+      200,
+      10,
+    );
     const [x] = toSvg(line, [100, 0]);
     expect(x).toBeLessThanOrEqual(190 + 1e-9);
   });
   it("picks a 1-2-5 scale bar", () => {
-    const f = fitPoints([[0, 0], [600, 450]], 400, 300, 20);
+    const f = fitPoints(
+      [
+        [0, 0],
+        [600, 450],
+      ],
+      400,
+      300,
+      20,
+    );
     expect([1, 2, 5].map((m) => [m, m * 10, m * 100]).flat()).toContain(scaleBarLength(f));
   });
 });

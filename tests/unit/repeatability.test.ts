@@ -28,7 +28,7 @@ function coupling(s: number | Record<string, number>, opts: { shift?: Vec3; scal
         body: "plate",
         point: [0, 1, 2].map((j) => (80 * g[j] + 5 * out[j] + shift[j]) * f),
         normal: [-out[0], -out[1], -out[2]],
-        scatter: (typeof s === "number" ? s : s[id] ?? 0) * f,
+        scatter: (typeof s === "number" ? s : (s[id] ?? 0)) * f,
         ...(opts.k ? { stiffness: opts.k[2 * k + i] / f } : {}),
       };
     });

@@ -13,7 +13,9 @@ describe("seating summary over load cases", () => {
   });
 
   it("a layout held in every case says so", () => {
-    expect(summariseLoadCases(runEngine(example("breadboard-three-seats")).report)!.text).toMatch(/^Seating over 1 load case: held in all 1; smallest seating margin/);
+    expect(summariseLoadCases(runEngine(example("breadboard-three-seats")).report)!.text).toMatch(
+      /^Seating over 1 load case: held in all 1; smallest seating margin/,
+    );
   });
 
   it("no load: no summary", () => {

@@ -16,7 +16,15 @@ const vertical = (pts: [number, number][], k?: number[]) =>
 
 describe("statics (reference-checks.md, Statics and support)", () => {
   it("E3: three supports (0,0), (300,0), (0,200) mm, 900 N at (100,50) → 375, 300, 225 N (lever rule, barycentric coordinates [D])", () => {
-    const l = layout({ bodies: [{ id: "plate" }], contacts: vertical([[0, 0], [300, 0], [0, 200]]), loads: [{ id: "P", body: "plate", force: [0, 0, -900], point: [100, 50, 0] }] });
+    const l = layout({
+      bodies: [{ id: "plate" }],
+      contacts: vertical([
+        [0, 0],
+        [300, 0],
+        [0, 200],
+      ]),
+      loads: [{ id: "P", body: "plate", force: [0, 0, -900], point: [100, 50, 0] }],
+    });
     const s = analyseLayout(l).statics.cases[0].seating!;
     expect(s.stiffness).toBe("none");
     expect(s.forces!.S1).toBeCloseTo(375, 9);
@@ -25,14 +33,38 @@ describe("statics (reference-checks.md, Statics and support)", () => {
   });
 
   it("E2: rigid cap on four equal springs at (±100, ±100) mm, 1000 N at (20, 10) → 325, 225, 175, 275 N (pile-group formula R = P/N + Mx·y/Σy² + My·x/Σx² [C], values [D])", () => {
-    const l = layout({ bodies: [{ id: "plate" }], contacts: vertical([[100, 100], [-100, 100], [-100, -100], [100, -100]], [5e4, 5e4, 5e4, 5e4]), loads: [{ id: "P", body: "plate", force: [0, 0, -1000], point: [20, 10, 0] }] });
+    const l = layout({
+      bodies: [{ id: "plate" }],
+      contacts: vertical(
+        [
+          [100, 100],
+          [-100, 100],
+          [-100, -100],
+          [100, -100],
+        ],
+        [5e4, 5e4, 5e4, 5e4],
+      ),
+      loads: [{ id: "P", body: "plate", force: [0, 0, -1000], point: [20, 10, 0] }],
+    });
     const s = analyseLayout(l).statics.cases[0].seating!;
     expect(s.stiffness).toBe("file");
     [325, 225, 175, 275].forEach((v, i) => expect(s.forces![`S${i + 1}`]).toBeCloseTo(v, 8));
   });
 
   it("E5: centred 1000 N on four springs, k1 = 2k → 285.7, 214.3, 285.7, 214.3 N [D]", () => {
-    const l = layout({ bodies: [{ id: "plate" }], contacts: vertical([[100, 100], [-100, 100], [-100, -100], [100, -100]], [2e4, 1e4, 1e4, 1e4]), loads: [{ id: "P", body: "plate", force: [0, 0, -1000], point: [0, 0, 0] }] });
+    const l = layout({
+      bodies: [{ id: "plate" }],
+      contacts: vertical(
+        [
+          [100, 100],
+          [-100, 100],
+          [-100, -100],
+          [100, -100],
+        ],
+        [2e4, 1e4, 1e4, 1e4],
+      ),
+      loads: [{ id: "P", body: "plate", force: [0, 0, -1000], point: [0, 0, 0] }],
+    });
     const s = analyseLayout(l).statics.cases[0].seating!;
     [2000 / 7, 1500 / 7, 2000 / 7, 1500 / 7].forEach((v, i) => expect(s.forces![`S${i + 1}`]).toBeCloseTo(v, 8));
     expect(Math.round(s.forces!.S1 * 10) / 10).toBe(285.7);
@@ -40,7 +72,12 @@ describe("statics (reference-checks.md, Statics and support)", () => {
 
   it("Kelvin coupling (trihedral 3 + vee 2 + flat 1), θ = 45°, 90 N at the triangle's centroid → 14.142, 21.213, 30 N (W/(9 cos θ), W/(6 cos θ), W/3 [D])", () => {
     const base = example("instrument-plate-socket-vee-flat");
-    const l: Layout = { ...base, bodies: [{ id: "instrument-plate" }], loads: [{ id: "W", body: "instrument-plate", force: [0, 0, -90], point: [100, 160 / 3, 0] }], loadCases: undefined };
+    const l: Layout = {
+      ...base,
+      bodies: [{ id: "instrument-plate" }],
+      loads: [{ id: "W", body: "instrument-plate", force: [0, 0, -90], point: [100, 160 / 3, 0] }],
+      loadCases: undefined,
+    };
     delete l.loadCases;
     const s = analyseLayout(l).statics.cases[0].seating!;
     // the example's normals are written to 6 decimals (0.707107), hence 1e-4 N
@@ -51,13 +88,36 @@ describe("statics (reference-checks.md, Statics and support)", () => {
 
   it("a seat that would pull lifts off; the rest re-solve (active set); a release that frees the part stops with forces null", () => {
     // load outside the support triangle of a stool: S3 must pull
-    const l = layout({ bodies: [{ id: "plate" }], contacts: vertical([[0, 0], [300, 0], [0, 200]], [1e4, 1e4, 1e4]), loads: [{ id: "P", body: "plate", force: [0, 0, -900], point: [200, -50, 0] }] });
+    const l = layout({
+      bodies: [{ id: "plate" }],
+      contacts: vertical(
+        [
+          [0, 0],
+          [300, 0],
+          [0, 200],
+        ],
+        [1e4, 1e4, 1e4],
+      ),
+      loads: [{ id: "P", body: "plate", force: [0, 0, -900], point: [200, -50, 0] }],
+    });
     const c = analyseLayout(l).statics.cases[0];
     expect(c.driven).toBe(true);
     expect(c.seating!.forces).toBeNull();
     expect(c.seating!.liftOff).toEqual(["S3"]);
     // four springs, load near one edge: the far corner lifts, three carry it (lever rule on the remaining three)
-    const four = layout({ bodies: [{ id: "plate" }], contacts: vertical([[100, 100], [-100, 100], [-100, -100], [100, -100]], [1e4, 1e4, 1e4, 1e4]), loads: [{ id: "P", body: "plate", force: [0, 0, -1000], point: [90, 60, 0] }] });
+    const four = layout({
+      bodies: [{ id: "plate" }],
+      contacts: vertical(
+        [
+          [100, 100],
+          [-100, 100],
+          [-100, -100],
+          [100, -100],
+        ],
+        [1e4, 1e4, 1e4, 1e4],
+      ),
+      loads: [{ id: "P", body: "plate", force: [0, 0, -1000], point: [90, 60, 0] }],
+    });
     const d = analyseLayout(four).statics.cases[0];
     expect(d.seating!.liftOff).toEqual(["S3"]);
     const f = d.seating!.forces!;
@@ -69,10 +129,22 @@ describe("statics (reference-checks.md, Statics and support)", () => {
   });
 
   it("Hertz stiffness: the load sharing is found at the fixed point and equals the result for stiffness ∝ F^(1/3)", () => {
-    const hz = { radii: [[5, 5], [null, null]], angleDeg: 0, materials: ["bearing-steel", "bearing-steel"] };
+    const hz = {
+      radii: [
+        [5, 5],
+        [null, null],
+      ],
+      angleDeg: 0,
+      materials: ["bearing-steel", "bearing-steel"],
+    };
     const l = layout({
       bodies: [{ id: "plate" }],
-      contacts: vertical([[100, 100], [-100, 100], [-100, -100], [100, -100]]).map((c) => ({ ...c, hertz: hz })),
+      contacts: vertical([
+        [100, 100],
+        [-100, 100],
+        [-100, -100],
+        [100, -100],
+      ]).map((c) => ({ ...c, hertz: hz })),
       loads: [{ id: "P", body: "plate", force: [0, 0, -1000], point: [20, 10, 0] }],
     });
     const a = analyseLayout(l);

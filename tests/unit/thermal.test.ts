@@ -43,7 +43,14 @@ function threeVee(alphaBody: number, alphaBase: number, extra: Record<string, un
 /** A bar between two stops along x (stiffness k1, k2, length ℓ), its other freedoms held by bilateral rows. */
 function bar(k1: number, k2: number, ell: number, alphaBar: number, alphaBase: number, unit: "mm" | "in" = "mm"): Layout {
   const s = unit === "in" ? 1 / 25.4 : 1;
-  const held = (id: string, p: Vec3, n: Vec3) => ({ id, body: "bar", point: p.map((x) => x * s), normal: n, sense: "bilateral", stiffness: 5e4 * (unit === "in" ? 25.4 : 1) });
+  const held = (id: string, p: Vec3, n: Vec3) => ({
+    id,
+    body: "bar",
+    point: p.map((x) => x * s),
+    normal: n,
+    sense: "bilateral",
+    stiffness: 5e4 * (unit === "in" ? 25.4 : 1),
+  });
   return rawLayout({
     units: { length: unit, force: "N" },
     bodies: [{ id: "bar", material: "bar-mat" }],
@@ -146,10 +153,7 @@ describe("thermal forces on random layouts", () => {
   const withMaterials = (seed: number, bodies: number): Layout => {
     const l = randomLayout(seed, bodies);
     const r = rng(seed + 99);
-    l.materials = [
-      { id: "base", expansionPerK: 11e-6 },
-      ...l.bodies.map((b) => ({ id: `m-${b.id}`, expansionPerK: 1e-6 + 25e-6 * r() })),
-    ];
+    l.materials = [{ id: "base", expansionPerK: 11e-6 }, ...l.bodies.map((b) => ({ id: `m-${b.id}`, expansionPerK: 1e-6 + 25e-6 * r() }))];
     l.groundMaterial = "base";
     l.bodies.forEach((b) => (b.material = `m-${b.id}`));
     l.contacts.forEach((c) => (c.stiffness = 1e4 * (0.2 + r())));

@@ -9,10 +9,5 @@ export const metadata: Metadata = { title: "Projects" };
 export default async function ProjectsPage() {
   const user = await requirePageUser("/projects");
   const checkers = user.role === "manager" ? await listUsersByRole("checker") : [];
-  return (
-    <ProjectsView
-      canCreate={user.role === "manager"}
-      checkers={checkers.map((c) => ({ id: c.id, name: c.name }))}
-    />
-  );
+  return <ProjectsView canCreate={user.role === "manager"} checkers={checkers.map((c) => ({ id: c.id, name: c.name }))} />;
 }

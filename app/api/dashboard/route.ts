@@ -11,6 +11,10 @@ export const GET = handle(async (req: Request) => {
   const { format, ...rest } = params;
   const filter = parseWith(dashboardFilterSchema, Object.fromEntries(Object.entries(rest).filter(([, v]) => v !== "")));
   const data = await dashboard(user, filter);
-  if (format === "csv") return new Response(dashboardCsv(data), { status: 200, headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": 'attachment; filename="sixfold-open-findings.csv"' } });
+  if (format === "csv")
+    return new Response(dashboardCsv(data), {
+      status: 200,
+      headers: { "content-type": "text/csv; charset=utf-8", "content-disposition": 'attachment; filename="sixfold-open-findings.csv"' },
+    });
   return Response.json(data, { status: 200 });
 });

@@ -23,5 +23,11 @@ testRule(rule, {
     { name: "three radial vees", layout: example("mirror-cell-three-vee") },
     { name: "socket–vee–flat with the vee towards the socket", layout: example("instrument-plate-socket-vee-flat") },
   ],
-  invalid: [{ name: "one vee laid across its bisector", layout: turnedVee(), findings: [{ title: /V1 90° off/, contacts: ["V1a", "V1b"], body: [/bisector/, /Contact angles: .*45°/] }] }],
+  invalid: [
+    {
+      name: "one vee laid across its bisector",
+      layout: turnedVee(),
+      findings: [{ title: /V1 90° off/, contacts: ["V1a", "V1b"], body: [/bisector/, /Contact angles: .*45°/] }],
+    },
+  ],
 });

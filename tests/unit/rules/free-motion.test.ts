@@ -21,7 +21,12 @@ testRule(rule, {
     {
       name: "four feet leave x, y and rotation about z",
       layout: example("breadboard-four-feet"),
-      findings: [{ title: /3 free motions where 0 are intended/, body: [/translation along \+x/, /translation along \+y/, /rotation about axis \+z through \(300, 225, 0\) mm/, /Repair/] }],
+      findings: [
+        {
+          title: /3 free motions where 0 are intended/,
+          body: [/translation along \+x/, /translation along \+y/, /rotation about axis \+z through \(300, 225, 0\) mm/, /Repair/],
+        },
+      ],
     },
     {
       name: "flexure stage locked out of intent by nothing, but with intent 0",

@@ -28,7 +28,15 @@ testRule(rule, {
     { name: "scatter but no functional point", layout: { ...plate(0.001), points: [] } },
   ],
   invalid: [
-    { name: "1 µm scatter: σ 1 µm per axis, 3σ 3 µm", layout: plate(0.001), findings: [{ title: /3σ up to 3 µm/, body: [/\| probe \| \(1, 1, 1\) \| 3 µm \|/, /33\.3 %/] }] },
-    { name: "3σ beyond a 2 µm allowance: warning", layout: plate(0.001, 0.002), findings: [{ title: /over the allowance at probe/, severity: "warning", body: [/\*\*over\*\*/] }] },
+    {
+      name: "1 µm scatter: σ 1 µm per axis, 3σ 3 µm",
+      layout: plate(0.001),
+      findings: [{ title: /3σ up to 3 µm/, body: [/\| probe \| \(1, 1, 1\) \| 3 µm \|/, /33\.3 %/] }],
+    },
+    {
+      name: "3σ beyond a 2 µm allowance: warning",
+      layout: plate(0.001, 0.002),
+      findings: [{ title: /over the allowance at probe/, severity: "warning", body: [/\*\*over\*\*/] }],
+    },
   ],
 });

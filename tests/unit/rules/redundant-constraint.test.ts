@@ -5,7 +5,13 @@ import { example } from "../../support/examples";
 import { makeLayout } from "../../support/layouts";
 
 const twoTables = makeLayout([
-  ...[[0, 0], [100, 0], [100, 100], [0, 100], [50, 50]].map(([x, y], i) => ({ id: `T${i + 1}`, p: [x, y, 0] as [number, number, number], n: [0, 0, 1] as [number, number, number] })),
+  ...[
+    [0, 0],
+    [100, 0],
+    [100, 100],
+    [0, 100],
+    [50, 50],
+  ].map(([x, y], i) => ({ id: `T${i + 1}`, p: [x, y, 0] as [number, number, number], n: [0, 0, 1] as [number, number, number] })),
 ]);
 
 testRule(rule, {
@@ -17,7 +23,14 @@ testRule(rule, {
     {
       name: "four feet: one loop, pivot F1 fights F2, F3, F4",
       layout: example("breadboard-four-feet"),
-      findings: [{ title: /F1 fights F2, F3, F4/, contacts: ["F1", "F2", "F3", "F4"], pivot: "F1", body: [/\| F2 \| foot-2 \| -1 \|/, /Removing any one of F1, F2, F3, F4/] }],
+      findings: [
+        {
+          title: /F1 fights F2, F3, F4/,
+          contacts: ["F1", "F2", "F3", "F4"],
+          pivot: "F1",
+          body: [/\| F2 \| foot-2 \| -1 \|/, /Removing any one of F1, F2, F3, F4/],
+        },
+      ],
     },
     {
       // Σλ = Σλx = Σλy = 0 with λ_T1 = 1, λ_T2 = 0 gives (T1, T3, T5) = (1, 1, −2); with λ_T1 = 0, λ_T2 = 1 gives (T2, T4, T5) = (1, 1, −2) [D]

@@ -29,8 +29,16 @@ testRule(rule, {
     { name: "a body without a material: no thermal results", layout: { ...example("mirror-cell-three-vee"), bodies: [{ id: "mirror-cell" }] } },
   ],
   invalid: [
-    { name: "drift listed per K and over 1 K without a swing", layout: plate(), findings: [{ title: /up to 2\.34 µm\/K/, body: [/\| plate \| \(0, 0, 0\) mm \|/, /\| lens \| \(2\.34, 0, 0\)/] }] },
+    {
+      name: "drift listed per K and over 1 K without a swing",
+      layout: plate(),
+      findings: [{ title: /up to 2\.34 µm\/K/, body: [/\| plate \| \(0, 0, 0\) mm \|/, /\| lens \| \(2\.34, 0, 0\)/] }],
+    },
     { name: "drift over a 5 K swing within a 0.02 mm allowance: info", layout: plate(0.02, 5), findings: [{ title: /up to 2\.34 µm\/K/, body: [/11\.7 µm/] }] },
-    { name: "drift over a 5 K swing beyond a 0.01 mm allowance: warning", layout: plate(0.01, 5), findings: [{ title: /over the allowance at lens/, severity: "warning", body: [/11\.7 µm \*\*over\*\*/] }] },
+    {
+      name: "drift over a 5 K swing beyond a 0.01 mm allowance: warning",
+      layout: plate(0.01, 5),
+      findings: [{ title: /over the allowance at lens/, severity: "warning", body: [/11\.7 µm \*\*over\*\*/] }],
+    },
   ],
 });

@@ -30,7 +30,15 @@ testRule(rule, {
     { name: "tiny force against a heavy seated bar (below 1 %)", layout: bar(20000, 11.6000001e-6, 500) },
   ],
   invalid: [
-    { name: "bar between two stops: 46.4 N/K", layout: bar(20000, 23.2e-6), findings: [{ title: /up to 46\.4 N\/K at L, R/, contacts: ["L", "R"], body: [/\| L \| 46\.4 \|/] }] },
-    { name: "equal stiffness assumed: the loop is named without a magnitude", layout: bar(undefined, 23.2e-6), findings: [{ title: /fought by L, R/, body: [/not computed/] }] },
+    {
+      name: "bar between two stops: 46.4 N/K",
+      layout: bar(20000, 23.2e-6),
+      findings: [{ title: /up to 46\.4 N\/K at L, R/, contacts: ["L", "R"], body: [/\| L \| 46\.4 \|/] }],
+    },
+    {
+      name: "equal stiffness assumed: the loop is named without a magnitude",
+      layout: bar(undefined, 23.2e-6),
+      findings: [{ title: /fought by L, R/, body: [/not computed/] }],
+    },
   ],
 });

@@ -14,7 +14,11 @@ export default async function LayoutPage({ params, searchParams }: { params: Pro
     <LayoutView
       layoutId={Number(layoutId)}
       initialRevision={revision ? Number(revision) : null}
-      can={{ upload: allowed(user.role, "uploadRevision"), requestRelease: allowed(user.role, "requestRelease"), approveRelease: allowed(user.role, "approveRelease") }}
+      can={{
+        upload: allowed(user.role, "uploadRevision"),
+        requestRelease: allowed(user.role, "requestRelease"),
+        approveRelease: allowed(user.role, "approveRelease"),
+      }}
     />
   );
 }

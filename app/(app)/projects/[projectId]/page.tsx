@@ -12,5 +12,14 @@ export default async function ProjectPage({ params }: { params: Promise<{ projec
   const user = await requirePageUser(`/projects/${projectId}`);
   const canAssign = allowed(user.role, "assignChecker");
   const checkers = canAssign ? (await listUsersByRole("checker")).map((c) => ({ id: c.id, name: c.name })) : [];
-  return <ProjectView projectId={Number(projectId)} canCreate={allowed(user.role, "createLayout")} canOverride={allowed(user.role, "overrideRules")} canAssign={canAssign} canEditMaterials={allowed(user.role, "manageMaterials")} checkers={checkers} />;
+  return (
+    <ProjectView
+      projectId={Number(projectId)}
+      canCreate={allowed(user.role, "createLayout")}
+      canOverride={allowed(user.role, "overrideRules")}
+      canAssign={canAssign}
+      canEditMaterials={allowed(user.role, "manageMaterials")}
+      checkers={checkers}
+    />
+  );
 }

@@ -23,7 +23,9 @@ export default async function PrintPage({ params, searchParams }: { params: Prom
   const [title, ...rest] = md.split("\n");
   return (
     <article className="mx-auto max-w-4xl space-y-4 bg-white p-6 print:p-0" data-testid="printable-report">
-      <div className="no-print flex justify-end"><PrintButton /></div>
+      <div className="no-print flex justify-end">
+        <PrintButton />
+      </div>
       <MarkdownView source={title} className="text-lg" />
       <LayoutDrawings layout={rev.layout} report={rev.report} print />
       <MarkdownView source={rest.join("\n")} />

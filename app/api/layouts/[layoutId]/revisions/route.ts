@@ -29,5 +29,8 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ layoutI
   });
   const result = await uploadRevision(user, layoutId, new Uint8Array(await file.arrayBuffer()), options);
   if (!result.ok) return Response.json({ error: "The file was refused; nothing was stored.", errors: result.errors }, { status: 422 });
-  return Response.json({ revision: result.revision, report: result.report, warnings: result.warnings, url: `/layouts/${layoutId}?revision=${result.revision.id}` }, { status: 201 });
+  return Response.json(
+    { revision: result.revision, report: result.report, warnings: result.warnings, url: `/layouts/${layoutId}?revision=${result.revision.id}` },
+    { status: 201 },
+  );
 });

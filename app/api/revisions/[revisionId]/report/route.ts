@@ -17,8 +17,14 @@ export const GET = handle(async (req: Request, ctx: { params: Promise<{ revision
   const md = await currentReportMarkdown(user, id);
   const base = `sixfold-layout-${rev.layoutId}-r${rev.number}`;
   if (format === "md") {
-    return new Response(md, { status: 200, headers: { "content-type": "text/markdown; charset=utf-8", "content-disposition": `attachment; filename="${base}.md"` } });
+    return new Response(md, {
+      status: 200,
+      headers: { "content-type": "text/markdown; charset=utf-8", "content-disposition": `attachment; filename="${base}.md"` },
+    });
   }
   const pdf = await reportPdf(md, { layout: rev.layout, report: rev.report });
-  return new Response(Buffer.from(pdf), { status: 200, headers: { "content-type": "application/pdf", "content-disposition": `attachment; filename="${base}.pdf"` } });
+  return new Response(Buffer.from(pdf), {
+    status: 200,
+    headers: { "content-type": "application/pdf", "content-disposition": `attachment; filename="${base}.pdf"` },
+  });
 });

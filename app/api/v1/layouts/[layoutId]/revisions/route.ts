@@ -27,9 +27,21 @@ export const POST = handle(async (req: Request, ctx: { params: Promise<{ layoutI
   const encoding = encodingOf(req.headers.get("content-type") ?? "");
   if (!encoding) throw new AppError(415, "Send the file with Content-Type application/json, application/xml or text/csv.");
   const q = Object.fromEntries(new URL(req.url).searchParams);
-  const options = parseWith(uploadOptionsSchema, { fileName: req.headers.get("x-file-name") || q.name || `upload.${encoding}`, encoding, length: q.length, force: q.force });
+  const options = parseWith(uploadOptionsSchema, {
+    fileName: req.headers.get("x-file-name") || q.name || `upload.${encoding}`,
+    encoding,
+    length: q.length,
+    force: q.force,
+  });
   const bytes = await readBodyLimited(req, MAX_FILE_BYTES);
   const result = await uploadRevision(user, layoutId, bytes, options);
   if (!result.ok) return Response.json({ error: "The file was refused; nothing was stored.", errors: result.errors }, { status: 422 });
-  return Response.json({ ...result.report, warnings: result.warnings, revision: { id: result.revision.id, number: result.revision.number, url: appLink(`/layouts/${layoutId}?revision=${result.revision.id}`) } }, { status: 201 });
+  return Response.json(
+    {
+      ...result.report,
+      warnings: result.warnings,
+      revision: { id: result.revision.id, number: result.revision.number, url: appLink(`/layouts/${layoutId}?revision=${result.revision.id}`) },
+    },
+    { status: 201 },
+  );
 });
