@@ -1,0 +1,69 @@
+/**
+ * Coupling to the foundation (analysis.md §4): Δλ = S d with S = K − KA(AᵀKA)⁺AᵀK over the first load
+ * case's active contacts and tangent stiffness, per 1 µm rise of each ground contact and per unit warp.
+ */
+import { GROUND } from "@/lib/layout/model";
+import { STATICS } from "../tolerances";
+import { factorStiff, separation, solveWith } from "./solver";
+import type { CaseResult, Ctx, Factor, FoundationResult, StiffnessSource } from "./types";
+
+/**
+ * The stiffness the foundation (and the functional points) use: every contact when nothing is redundant
+ * (the result does not depend on it), file stiffness, or the first case's Hertz tangent; null when only the
+ * equal assumption is left (no magnitude).
+ */
+export function foundationStiffness(ctx: Ctx, first: CaseResult, source: StiffnessSource): number[] | null {
+  const { layout, c } = ctx;
+  if (c.counts.redundancies === 0) return layout.contacts.map((k) => k.stiffness ?? 1);
+  if (source === "file") return layout.contacts.map((k, i) => (first.active[i] ? k.stiffness! : 0));
+  if (source === "hertz" && first.tangent && first.tangent.some((v) => v > 0)) return first.tangent.map((v, i) => (first.active[i] ? v : 0));
+  return null;
+}
+
+/** The foundation result, or null without a stiffness magnitude. */
+export function analyseFoundation(ctx: Ctx, first: CaseResult, source: StiffnessSource, kFound: number[] | null): FoundationResult | null {
+  const { layout, c, m } = ctx;
+  if (!kFound) return null;
+  const ground = layout.contacts.map((k, i) => (k.on === GROUND ? i : -1)).filter((i) => i >= 0);
+  const perUm = 1e-6 / ctx.toMetre;
+  const active = first.active.map((a, i) => a && kFound[i] > 0);
+  let factor: Factor | null = null;
+  const columnOf = (d: number[]): number[] => {
+    // (AᵀKA) u = AᵀK d over the active contacts, then Δλ = K (d − A u)
+    factor ??= factorStiff(
+      ctx,
+      kFound.map((v) => (v > 0 ? v : 1)),
+      active,
+    );
+    const Kd = d.map((v, i) => (active[i] ? kFound[i] * v : 0));
+    const w = new Array<number>(ctx.n).fill(0);
+    for (let i = 0; i < m; i++) if (Kd[i] !== 0) for (let q = 0; q < ctx.n; q++) w[q] += c.A.get(i, q) * Kd[i];
+    const { u } = solveWith(ctx, factor, w);
+    return d.map((v, i) => (active[i] ? kFound[i] * (v - separation(ctx, i, u)) : 0));
+  };
+  const sensitivity: Record<string, Record<string, number>> = {};
+  let max = 0;
+  const kMax = Math.max(...kFound);
+  for (const j of ground) {
+    const d = new Array<number>(m).fill(0);
+    d[j] = perUm;
+    const col = c.counts.redundancies === 0 ? new Array<number>(m).fill(0) : columnOf(d);
+    const entry: Record<string, number> = {};
+    layout.contacts.forEach((k, i) => {
+      const v = Math.abs(col[i]) < STATICS.foundationRoundOff * (kMax * perUm) ? 0 : col[i];
+      entry[k.id] = v;
+      max = Math.max(max, Math.abs(v));
+    });
+    sensitivity[layout.contacts[j].id] = entry;
+  }
+  const warp =
+    c.counts.redundancies === 0
+      ? []
+      : c.selfStress.map((state) => {
+          const d = layout.contacts.map((k) => (k.on === GROUND ? (state.forces[k.id] ?? 0) : 0));
+          const big = Math.max(...d.map(Math.abs));
+          const resp = big > 0 ? columnOf(d.map((v) => (v / big) * perUm)) : new Array<number>(m).fill(0);
+          return { pivot: state.pivot, forces: Object.fromEntries(layout.contacts.map((k, i) => [k.id, resp[i]])) };
+        });
+  return { sensitivity, maxPerMicrometre: max, warp, stiffness: c.counts.redundancies === 0 ? "none" : source };
+}
