@@ -1,9 +1,15 @@
 /** contact-overstress: Hertz maximum pressure above the lower allowable of the two materials (one finding per contact, every case in a table). */
 import { z } from "zod";
-import { defineRule, type FindingDraft } from "./types";
+import { defineRule, fill, type FindingDraft } from "./types";
 import { num } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
 import type { HertzEntry } from "@/lib/analysis";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "{contact} at {pressure} MPa exceeds {allowable} MPa (load case {worstCase})",
+  titleCases: "{contact} at {pressure} MPa exceeds {allowable} MPa (worst of {cases} load cases: {worstCase})",
+};
 
 export default defineRule({
   meta: {
@@ -15,6 +21,7 @@ export default defineRule({
     source:
       "Johnson, Contact Mechanics (CUP 1985) §3–§4; Roark's Formulas for Stress and Strain, Table 14.1; ISO 76 static load rating (4200 MPa for ball bearings)",
     options: z.object({ derate: z.number().positive().max(1).default(1) }),
+    messages,
   },
   check({ layout, analysis, options }) {
     const u = unitLabel(layout.units.length);
@@ -37,7 +44,13 @@ export default defineRule({
       for (const r of rows)
         table.push(`| ${r.caseId} | ${num(r.h.maxPressureMPa)} | ${num(r.allow)} | ${num(r.h.semiMajor)} × ${num(r.h.semiMinor)} | ${num(r.h.approachUm)} |`);
       out.push({
-        title: `${c.id} at ${num(worst.h.maxPressureMPa)} MPa exceeds ${num(worst.allow)} MPa${rows.length > 1 ? ` (worst of ${rows.length} load cases: ${worst.caseId})` : ` (load case ${worst.caseId})`}`,
+        title: fill(rows.length > 1 ? messages.titleCases : messages.title, {
+          contact: c.id,
+          pressure: num(worst.h.maxPressureMPa),
+          allowable: num(worst.allow),
+          cases: rows.length,
+          worstCase: worst.caseId,
+        }),
         body: [
           `Contact ${c.id} exceeds the allowable Hertz pressure${options.derate < 1 ? ` (derated ×${options.derate})` : ""} in ${rows.length} load case${rows.length === 1 ? "" : "s"}, worst first:`,
           "",

@@ -1,7 +1,12 @@
 /** coupling-geometry: a vee's groove axis is off its guideline; contact angles reported. */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { num } from "@/lib/analysis/format";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "{kind} coupling of {body}: {offsets} off",
+};
 
 export default defineRule({
   meta: {
@@ -13,6 +18,7 @@ export default defineRule({
     source:
       "Slocum, Precision Machine Design (1992), kinematic coupling design; Slocum, Precision Engineering 14 (1992) 'Design of three-groove kinematic couplings'",
     options: z.object({ maxOffDeg: z.number().positive().max(90).default(10) }),
+    messages,
   },
   check({ analysis, options }) {
     const out = [];
@@ -23,7 +29,11 @@ export default defineRule({
         .map(([id, a]) => `${id} ${num(a, 3)}°`)
         .join(", ");
       out.push({
-        title: `${cp.kind === "three-vee" ? "Three-vee" : "Socket–vee–flat"} coupling of ${cp.body}: ${off.map((s) => `${s.feature} ${num(s.grooveOffDeg!, 3)}°`).join(", ")} off`,
+        title: fill(messages.title, {
+          kind: cp.kind === "three-vee" ? "Three-vee" : "Socket–vee–flat",
+          body: cp.body,
+          offsets: off.map((s) => `${s.feature} ${num(s.grooveOffDeg!, 3)}°`).join(", "),
+        }),
         body: [
           ...off.map((s) => `- vee **${s.feature}**: groove axis ${num(s.grooveOffDeg!, 3)}° off the ${s.guideline} (threshold ${options.maxOffDeg}°)`),
           "",

@@ -1,10 +1,16 @@
 /** foundation-coupling: the support to ground is over-constrained, so the base's shape leaks into the part. */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { featuresOf } from "./describe";
 import { num } from "@/lib/analysis/format";
 import { GROUND } from "@/lib/layout/model";
 import { unitLabel } from "@/lib/layout/units";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "Base warp reaches the part: {force} {unit} per µm",
+  titleNoMagnitude: "Base warp reaches the part (over-constrained support)",
+};
 
 export default defineRule({
   meta: {
@@ -16,6 +22,7 @@ export default defineRule({
     source:
       "Compatibility and stiffness method of structural analysis (flexibility/stiffness of redundant supports); self-stress after Pellegrino & Calladine, IJSS 22 (1986)",
     options: z.object({ fraction: z.number().positive().default(0.01) }),
+    messages,
   },
   check({ layout, analysis, options }) {
     const { selfStress, counts } = analysis.constraint;
@@ -52,7 +59,7 @@ export default defineRule({
     );
     return [
       {
-        title: f ? `Base warp reaches the part: ${num(f.maxPerMicrometre)} ${fu} per µm` : "Base warp reaches the part (over-constrained support)",
+        title: f ? fill(messages.title, { force: num(f.maxPerMicrometre), unit: fu }) : messages.titleNoMagnitude,
         body: lines.join("\n"),
         contacts: involved,
         features: featuresOf(layout, involved),

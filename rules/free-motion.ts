@@ -1,9 +1,15 @@
 /** free-motion: the layout leaves more degrees of freedom than it intends. */
 import { z } from "zod";
-import { defineRule } from "./types";
-import { motionTable, movingBodies, stoppingContact } from "./describe";
+import { defineRule, fill } from "./types";
+import { motionTable, movingBodies } from "./describe";
+import { stoppingContact } from "@/lib/analysis/motion";
 import { dir, vec } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "{motions} where {intended} intended",
+};
 
 export default defineRule({
   meta: {
@@ -14,6 +20,7 @@ export default defineRule({
       "Each body has six degrees of freedom; every independent contact removes one. The freedoms left are `6N − rank` of the constraint matrix. A freedom that the design does not intend lets the part wander under any load along it. Each free motion is shown as a screw: its axis, and a point and pitch where it turns.",
     source: "Screw theory: Ball, A Treatise on the Theory of Screws (1900); rank counting as in Hopkins & Culpepper, Precision Engineering 34 (2010)",
     options: z.object({}),
+    messages,
   },
   check({ layout, analysis }) {
     const { counts, freeMotions } = analysis.constraint;
@@ -32,7 +39,10 @@ export default defineRule({
     const intended = layout.intendedFreedoms ? ` The layout intends ${layout.intendedFreedoms}; ${extra} more must be stopped.` : "";
     return [
       {
-        title: `${counts.freedoms} free motion${counts.freedoms === 1 ? "" : "s"} where ${layout.intendedFreedoms} ${layout.intendedFreedoms === 1 ? "is" : "are"} intended`,
+        title: fill(messages.title, {
+          motions: `${counts.freedoms} free motion${counts.freedoms === 1 ? "" : "s"}`,
+          intended: `${layout.intendedFreedoms} ${layout.intendedFreedoms === 1 ? "is" : "are"}`,
+        }),
         body: [
           `Rank ${counts.rank} of ${6 * counts.bodies} leaves **${counts.freedoms} degree${counts.freedoms === 1 ? "" : "s"} of freedom**.${intended}`,
           "",

@@ -1,7 +1,12 @@
 /** functional-point-sensitivity: the error motion of each functional point per µm of support rise and under load. */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { num, vec } from "@/lib/analysis/format";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "{point}: up to {motion} µm per µm of support rise",
+};
 
 export default defineRule({
   meta: {
@@ -12,6 +17,7 @@ export default defineRule({
       "A functional point (an optic vertex, a probe tip) moves with its body. For a 1 µm rise of one ground support the body moves by u = (JᵀKJ)⁺JᵀK d (rigidly when the support is exactly constrained, whatever the stiffness); under the seated load it sinks by the contact compliance (secant stiffness F/δ for Hertz contacts). The table gives the point's displacement for each.",
     source: "Rigid-body kinematics of the twist (v + ω × p); stiffness method for the compliant support",
     options: z.object({}),
+    messages,
   },
   check({ analysis }) {
     const entries = Object.entries(analysis.statics.points);
@@ -28,7 +34,7 @@ export default defineRule({
         ? `Under the seated load (first load case) the point moves ${vec(pm.seatedUm, "µm")}.`
         : "The seated displacement needs contact stiffness (file or Hertz data) and a load.";
       return {
-        title: `${id}: up to ${num(worst)} µm per µm of support rise`,
+        title: fill(messages.title, { point: id, motion: num(worst) }),
         body: [`Functional point **${id}** on ${pm.body}.`, "", rows.join("\n"), "", seated].join("\n"),
         bodies: [pm.body],
         keys: [`point:${id}`],

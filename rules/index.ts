@@ -14,7 +14,7 @@ import seatLiftOff from "./seat-lift-off";
 import thermalDrift from "./thermal-drift";
 import thermalMismatch from "./thermal-mismatch";
 import weakConstraint from "./weak-constraint";
-import { CAUTION, needsCaution } from "./describe";
+import { CAUTION, needsCaution } from "@/lib/caution";
 import { fingerprintOf, type Finding, type Rule, type Severity } from "./types";
 import type { EngineAnalysis } from "@/lib/analysis";
 

@@ -1,6 +1,6 @@
 /** missing-data: a check was skipped because the layout lacks mass, loads, stiffness, Hertz, material or scatter data. */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { GROUND } from "@/lib/layout/model";
 import { hertzUsable } from "@/lib/analysis/statics";
 import { expansionCoefficients } from "@/lib/analysis/thermal";
@@ -8,6 +8,11 @@ import { expansionCoefficients } from "@/lib/analysis/thermal";
 /** Ids listed in full up to this many; beyond, only the count. */
 const LISTED = 12;
 const list = (ids: string[]) => (ids.length <= LISTED ? ` (${ids.join(", ")})` : "");
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "{checks} skipped for lack of data",
+};
 
 export default defineRule({
   meta: {
@@ -18,6 +23,7 @@ export default defineRule({
       "Counting needs only points and normals. Seating needs a mass or a load; load sharing and foundation coupling of an over-constrained support need contact stiffness (from the file, from flexure sections or from Hertz data); contact stress needs Hertz data with Young's modulus and Poisson's ratio of both materials; the temperature analysis needs an expansion coefficient for the ground and every body; repeatability needs seat scatter. This finding lists what was skipped so that a clean report is not mistaken for a complete one.",
     source: "common practice (review completeness)",
     options: z.object({}),
+    messages,
   },
   check({ layout, analysis }) {
     // each entry: a stable key (part of the fingerprint, never reworded) and its sentence
@@ -73,7 +79,7 @@ export default defineRule({
     if (!skipped.length) return [];
     return [
       {
-        title: `${skipped.length} check${skipped.length === 1 ? "" : "s"} skipped for lack of data`,
+        title: fill(messages.title, { checks: `${skipped.length} check${skipped.length === 1 ? "" : "s"}` }),
         body: ["Not checked:", "", ...skipped.map((s) => `- ${s.text}`)].join("\n"),
         keys: skipped.map((s) => s.key),
       },

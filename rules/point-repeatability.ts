@@ -1,12 +1,18 @@
 /** point-repeatability: the scatter of each functional point from seat scatter, and which seats feed it. */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { rowLabel } from "./describe";
 import { num, vec } from "@/lib/analysis/format";
 import { metresPer, unitLabel } from "@/lib/layout/units";
 
 /** Contributors listed per point in the finding. */
 const TOP = 3;
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "Repeatability: 3σ up to {sigma} µm at the functional points",
+  titleOver: "Repeatability over the allowance at {points}",
+};
 
 export default defineRule({
   meta: {
@@ -18,6 +24,7 @@ export default defineRule({
     source:
       "Linear propagation of independent errors (covariance law, GUM JCGM 100:2008 §5.1); error budgeting of kinematic couplings (precision-engineering practice)",
     options: z.object({}),
+    messages,
   },
   check({ layout, analysis }) {
     const rep = analysis.repeatability;
@@ -51,7 +58,7 @@ export default defineRule({
       );
     return [
       {
-        title: over.length ? `Repeatability over the allowance at ${over.join(", ")}` : `Repeatability: 3σ up to ${num(worst)} µm at the functional points`,
+        title: over.length ? fill(messages.titleOver, { points: over.join(", ") }) : fill(messages.title, { sigma: num(worst) }),
         body: lines.join("\n"),
         keys: ["repeatability"],
         ...(over.length ? { severity: "warning" as const } : {}),

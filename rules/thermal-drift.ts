@@ -1,9 +1,16 @@
 /** thermal-drift: where each body's thermal centre lies and how far each functional point drifts per kelvin and over the swing. */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { num, vec } from "@/lib/analysis/format";
 import { metresPer, unitLabel } from "@/lib/layout/units";
 import { norm } from "@/lib/analysis/vec";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "Thermal drift up to {drift} µm/K at the functional points",
+  titleOver: "Thermal drift over the allowance at {points}",
+  titleCentres: "Thermal centres of the bodies",
+};
 
 export default defineRule({
   meta: {
@@ -15,6 +22,7 @@ export default defineRule({
     source:
       "Linear thermal expansion and rigid-body kinematics of the twist; thermal centre of three-groove couplings at the intersection of the groove axes (symmetry property of kinematic couplings, precision-engineering design practice)",
     options: z.object({}),
+    messages,
   },
   check({ layout, analysis }) {
     const t = analysis.thermal;
@@ -58,10 +66,10 @@ export default defineRule({
     return [
       {
         title: over.length
-          ? `Thermal drift over the allowance at ${over.join(", ")}`
+          ? fill(messages.titleOver, { points: over.join(", ") })
           : pts.length
-            ? `Thermal drift up to ${num(worst)} µm/K at the functional points`
-            : "Thermal centres of the bodies",
+            ? fill(messages.title, { drift: num(worst) })
+            : messages.titleCentres,
         body: lines.join("\n"),
         bodies: layout.bodies.map((b) => b.id),
         keys: ["thermal"],

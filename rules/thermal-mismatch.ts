@@ -1,9 +1,15 @@
 /** thermal-mismatch: an over-constrained support fights the thermal growth and its contacts load up. */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { featuresOf, rowLabel, rowNames } from "./describe";
 import { num } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "Thermal growth is fought: up to {force} {unit}/K at {rows}",
+  titleNoMagnitude: "Thermal growth is fought by {rows}",
+};
 
 export default defineRule({
   meta: {
@@ -14,6 +20,7 @@ export default defineRule({
       "When part and base expand differently, an exactly constrained mount lets the part follow as a rigid body and no force changes. With a redundant support the seats cannot all follow: the mismatch e is fought and the forces change by Δλ = K(e − J t) per kelvin, a self-stress (Jᵀ Δλ = 0) that bends the part and shifts its seats. With file, flexure or Hertz stiffness the finding gives the force change per kelvin and over the swing and compares it with the mean seated force (threshold an option); with only equal stiffness assumed it names the loop without a magnitude.",
     source: "Thermal stress in statically indeterminate supports (compatibility method, Hooke's law); self-stress after Pellegrino & Calladine, IJSS 22 (1986)",
     options: z.object({ fraction: z.number().positive().default(0.01) }),
+    messages,
   },
   check({ layout, analysis, options }) {
     const t = analysis.thermal;
@@ -49,8 +56,8 @@ export default defineRule({
       {
         title:
           maxPerK !== null
-            ? `Thermal growth is fought: up to ${num(maxPerK)} ${fu}/K at ${names.slice(0, 4).join(", ")}`
-            : `Thermal growth is fought by ${names.slice(0, 4).join(", ")}`,
+            ? fill(messages.title, { force: num(maxPerK), unit: fu, rows: names.slice(0, 4).join(", ") })
+            : fill(messages.titleNoMagnitude, { rows: names.slice(0, 4).join(", ") }),
         body: lines.join("\n"),
         contacts: rows.slice().sort(),
         features: featuresOf(layout, rows),

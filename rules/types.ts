@@ -19,6 +19,8 @@ export interface RuleMeta<O> {
   source: string;
   /** options schema; parsing `{}` gives the defaults */
   options: z.ZodType<O>;
+  /** message templates of the finding titles, `{name}` filled by `fill` (wording lives here, not in the check) */
+  messages: Record<string, string>;
 }
 
 /** What a rule's check reports; the runner adds rule id, severity and fingerprint. */
@@ -76,4 +78,12 @@ export function fingerprintOf(ruleId: string, d: FindingDraft): string {
   if (d.pivot) fp += `|pivot:${d.pivot}`;
   if (d.loadCase) fp += `|case:${d.loadCase}`;
   return fp;
+}
+
+/** Fills a message template's `{name}` placeholders; a placeholder without a value is a programming error. */
+export function fill(template: string, values: Record<string, string | number>): string {
+  return template.replace(/\{(\w+)\}/g, (_m, key: string) => {
+    if (!(key in values)) throw new Error(`message template "${template}" needs a value for {${key}}`);
+    return String(values[key]);
+  });
 }

@@ -1,8 +1,13 @@
 /** weak-constraint: the constraint matrix is poorly conditioned (a direction held only by a small lever). */
 import { z } from "zod";
-import { defineRule } from "./types";
+import { defineRule, fill } from "./types";
 import { movingBodies, screwText } from "./describe";
 import { num } from "@/lib/analysis/format";
+
+/** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
+const messages = {
+  title: "Weakly held: conditioning {conditioning} is below {threshold}",
+};
 
 export default defineRule({
   meta: {
@@ -14,6 +19,7 @@ export default defineRule({
     source:
       "Singular value decomposition, condition of a linear map: Golub & Van Loan, Matrix Computations, §2.4; characteristic-length scaling as in Hopkins & Culpepper, Precision Engineering 34 (2010)",
     options: z.object({ threshold: z.number().positive().max(1).default(0.05) }),
+    messages,
   },
   check({ layout, analysis, options }) {
     const { conditioning, counts, weakestDirection } = analysis.constraint;
@@ -21,7 +27,7 @@ export default defineRule({
     const bodies = movingBodies(weakestDirection);
     return [
       {
-        title: `Weakly held: conditioning ${num(conditioning, 3)} is below ${options.threshold}`,
+        title: fill(messages.title, { conditioning: num(conditioning, 3), threshold: options.threshold }),
         body: [
           `σ_r / σ_max = **${num(conditioning, 4)}** (threshold ${options.threshold}). The least-constrained direction:`,
           "",

@@ -3,7 +3,7 @@ import type { Report } from "@/lib/engine";
 import { unitLabel } from "@/lib/layout/units";
 import { axisName, dir, num, vec } from "@/lib/analysis/format";
 import { serviceSections } from "@/lib/report/service-sections";
-import { CAUTION } from "@/rules/describe";
+import { CAUTION } from "@/lib/caution";
 
 const mark = { error: "ERROR  ", warning: "WARNING", info: "INFO   " } as const;
 

@@ -2,7 +2,7 @@
 import type { ReleaseReportData } from "@/lib/contracts/report";
 import { num, vec } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
-import { CAUTION } from "@/rules/describe";
+import { CAUTION } from "@/lib/caution";
 import { serviceSections } from "./service-sections";
 import { summariseLoadCases } from "./load-case-summary";
 
