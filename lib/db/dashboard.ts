@@ -35,10 +35,22 @@ export async function dashboard(_user: SessionUser, f: DashboardFilter): Promise
       k.raw("sum(t.opened_at < now(3) - interval 7 day and t.opened_at >= now(3) - interval 30 day) as underMonth"),
       k.raw("sum(t.opened_at < now(3) - interval 30 day) as older"),
     );
-  const num = (r: Record<string, unknown>): DashboardRow => ({
-    projectId: r.projectId as number,
-    project: r.project as string,
-    checker: (r.checker as string | null) ?? null,
+  /** One project's counts as MariaDB returns them (sums arrive as strings). */
+  interface CountRow {
+    projectId: number;
+    project: string;
+    checker: string | null;
+    error: number | string;
+    warning: number | string;
+    info: number | string;
+    underWeek: number | string;
+    underMonth: number | string;
+    older: number | string;
+  }
+  const num = (r: CountRow): DashboardRow => ({
+    projectId: r.projectId,
+    project: r.project,
+    checker: r.checker ?? null,
     error: Number(r.error),
     warning: Number(r.warning),
     info: Number(r.info),
@@ -108,13 +120,15 @@ export async function dashboard(_user: SessionUser, f: DashboardFilter): Promise
         .whereIn("t.status", ["open", "reopened"])
         .select("fi.revision_id", "t.id", "t.title")
     : [];
-  const layouts = layoutRows.map((r: Record<string, unknown>) => {
-    const blocking = blockers
-      .filter((b: { revision_id: number }) => b.revision_id === r.revision_id)
-      .map((b: { id: number; title: string }) => ({ threadId: b.id, title: b.title }));
-    const state: DashboardDto["layouts"][number]["state"] = r.approved_at ? "released" : blocking.length ? "blocked" : r.requested_at ? "requested" : "ready";
-    return { id: r.id as number, name: r.name as string, project: r.project as string, revision: r.number as number, state, blocking };
-  });
+  const layouts = layoutRows.map(
+    (r: { id: number; name: string; project: string; number: number; revision_id: number; approved_at: Date | null; requested_at: Date | null }) => {
+      const blocking = blockers
+        .filter((b: { revision_id: number }) => b.revision_id === r.revision_id)
+        .map((b: { id: number; title: string }) => ({ threadId: b.id, title: b.title }));
+      const state: DashboardDto["layouts"][number]["state"] = r.approved_at ? "released" : blocking.length ? "blocked" : r.requested_at ? "requested" : "ready";
+      return { id: r.id, name: r.name, project: r.project, revision: r.number, state, blocking };
+    },
+  );
   const rules = (await db()("threads").distinct("rule").orderBy("rule")).map((r: { rule: string }) => r.rule);
   const projects = await db()("projects").select("id", "name").orderBy("name");
   const checkers = await db()("users").where({ role: "checker", active: true }).select("id", "name").orderBy("name");

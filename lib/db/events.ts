@@ -6,6 +6,19 @@ import { db } from "./knex";
 import type { EventKind, EventDto } from "@/lib/contracts/events";
 export type { EventKind, EventDto } from "@/lib/contracts/events";
 
+/** An event row joined with its actor's name. */
+interface EventRow {
+  id: number;
+  layout_id: number;
+  thread_id: number | null;
+  revision_id: number | null;
+  actor_id: number | null;
+  actor_name: string | null;
+  kind: EventKind;
+  detail: string;
+  created_at: Date;
+}
+
 /** Appends one event (inside the caller's transaction when given). */
 export async function recordEvent(
   trx: Knex | Knex.Transaction,
@@ -26,14 +39,14 @@ export async function listEvents(filter: { layoutId?: number; threadId?: number 
   const q = db()("events as e").leftJoin("users as u", "u.id", "e.actor_id").select("e.*", "u.name as actor_name").orderBy("e.id", "asc").limit(limit);
   if (filter.layoutId) q.where("e.layout_id", filter.layoutId);
   if (filter.threadId) q.where("e.thread_id", filter.threadId);
-  const rows = await q;
-  return rows.map((r: Record<string, unknown>) => ({
-    id: r.id as number,
-    kind: r.kind as EventKind,
-    actor: (r.actor_name as string | null) ?? null,
-    threadId: (r.thread_id as number | null) ?? null,
-    revisionId: (r.revision_id as number | null) ?? null,
-    detail: JSON.parse(r.detail as string),
+  const rows: EventRow[] = await q;
+  return rows.map((r) => ({
+    id: r.id,
+    kind: r.kind,
+    actor: r.actor_name ?? null,
+    threadId: r.thread_id ?? null,
+    revisionId: r.revision_id ?? null,
+    detail: JSON.parse(r.detail) as Record<string, unknown>,
     createdAt: iso(r.created_at),
   }));
 }

@@ -26,19 +26,31 @@ export function ruleCatalogue(): { id: string; severity: Severity; summary: stri
   }));
 }
 
-type Row = Record<string, unknown>;
+/** A rule-override row joined with the name of who set it. */
+interface OverrideRow {
+  id: number;
+  project_id: number;
+  rule: string;
+  severity: Severity | null;
+  options: string | null;
+  cleared: number | boolean;
+  reason: string;
+  set_by: number;
+  set_by_name: string | null;
+  created_at: Date;
+}
 const metaOf = (id: string) => rules.find((r) => r.meta.id === id)?.meta;
 
-function toDto(r: Row): OverrideDto {
+function toDto(r: OverrideRow): OverrideDto {
   return {
-    id: r.id as number,
-    rule: r.rule as string,
-    defaultSeverity: metaOf(r.rule as string)?.severity ?? "info",
-    severity: (r.severity as Severity | null) ?? null,
-    options: r.options ? (JSON.parse(r.options as string) as Record<string, unknown>) : null,
+    id: r.id,
+    rule: r.rule,
+    defaultSeverity: metaOf(r.rule)?.severity ?? "info",
+    severity: r.severity ?? null,
+    options: r.options ? (JSON.parse(r.options) as Record<string, unknown>) : null,
     cleared: !!r.cleared,
-    reason: r.reason as string,
-    setBy: (r.set_by_name as string | null) ?? "",
+    reason: r.reason,
+    setBy: r.set_by_name ?? "",
     setAt: iso(r.created_at),
   };
 }
@@ -50,7 +62,7 @@ export async function listOverrides(_user: SessionUser, projectId: number): Prom
 }
 
 async function readOverrides(projectId: number): Promise<{ current: OverrideDto[]; history: OverrideDto[] }> {
-  const rows: Row[] = await db()("rule_overrides as o")
+  const rows: OverrideRow[] = await db()("rule_overrides as o")
     .join("users as u", "u.id", "o.set_by")
     .where("o.project_id", projectId)
     .select("o.*", "u.name as set_by_name")

@@ -16,36 +16,87 @@ import type { RuleOverride } from "@/rules";
 import type { RevisionSummaryDto, RevisionDto, FindingRowDto, RevisionDiff } from "@/lib/contracts/revisions";
 export type { RevisionSummaryDto, RevisionDto, FindingRowDto, RevisionDiff } from "@/lib/contracts/revisions";
 
-type Row = Record<string, unknown>;
+/** A revision row joined with its uploader and release (revisionQuery). */
+interface RevisionRow {
+  id: number;
+  layout_id: number;
+  number: number;
+  encoding: Encoding;
+  file_name: string;
+  bodies: number;
+  contacts: number;
+  rank_: number;
+  freedoms: number;
+  redundancies: number;
+  conditioning: number;
+  uploader: string;
+  created_at: Date;
+  overrides: string | null;
+  requester: string | null;
+  requested_at: Date | null;
+  approver: string | null;
+  approved_at: Date | null;
+  report?: string;
+  parsed?: string;
+}
 
-function toSummary(r: Row): RevisionSummaryDto {
+/** A finding row joined with its thread's status and comment count. */
+interface FindingJoinRow {
+  id: number;
+  thread_id: number;
+  rule: string;
+  severity: FindingRowDto["severity"];
+  title: string;
+  body: string;
+  contacts: string;
+  load_case: string | null;
+  status: FindingRowDto["status"];
+  comment_count: number | string;
+}
+
+/** A thread row as the carry-over reads it. */
+interface ThreadRow {
+  id: number;
+  layout_id: number;
+  fingerprint: string;
+  fingerprint_hash: string;
+  rule: string;
+  severity: FindingRowDto["severity"];
+  title: string;
+  status: FindingRowDto["status"];
+  version: number;
+}
+
+function toSummary(r: RevisionRow): RevisionSummaryDto {
   return {
-    id: r.id as number,
-    layoutId: r.layout_id as number,
-    number: r.number as number,
-    encoding: r.encoding as Encoding,
-    fileName: r.file_name as string,
-    counts: {
-      bodies: r.bodies as number,
-      contacts: r.contacts as number,
-      rank: r.rank_ as number,
-      freedoms: r.freedoms as number,
-      redundancies: r.redundancies as number,
-    },
-    conditioning: r.conditioning as number,
-    uploadedBy: r.uploader as string,
+    id: r.id,
+    layoutId: r.layout_id,
+    number: r.number,
+    encoding: r.encoding,
+    fileName: r.file_name,
+    counts: { bodies: r.bodies, contacts: r.contacts, rank: r.rank_, freedoms: r.freedoms, redundancies: r.redundancies },
+    conditioning: r.conditioning,
+    uploadedBy: r.uploader,
     createdAt: iso(r.created_at),
-    overrides: r.overrides ? (JSON.parse(r.overrides as string) as Record<string, RuleOverride>) : {},
+    overrides: r.overrides ? (JSON.parse(r.overrides) as Record<string, RuleOverride>) : {},
     release: r.requested_at
-      ? {
-          requestedBy: r.requester as string,
-          requestedAt: iso(r.requested_at),
-          approvedBy: (r.approver as string | null) ?? null,
-          approvedAt: isoOrNull(r.approved_at),
-        }
+      ? { requestedBy: r.requester ?? "", requestedAt: iso(r.requested_at), approvedBy: r.approver ?? null, approvedAt: isoOrNull(r.approved_at) }
       : null,
   };
 }
+
+const toFinding = (f: FindingJoinRow): FindingRowDto => ({
+  id: f.id,
+  threadId: f.thread_id,
+  rule: f.rule,
+  severity: f.severity,
+  title: f.title,
+  body: f.body,
+  contacts: JSON.parse(f.contacts) as string[],
+  loadCase: f.load_case ?? null,
+  status: f.status,
+  comments: Number(f.comment_count),
+});
 
 function revisionQuery() {
   return db()("revisions as v")
@@ -83,29 +134,18 @@ export async function listRevisions(_user: SessionUser, layoutId: number): Promi
 
 /** One revision with its report, parsed layout and findings (with the thread status now). */
 export async function getRevision(_user: SessionUser, revisionId: number): Promise<RevisionDto> {
-  const row = await revisionQuery().select("v.report", "v.parsed").where("v.id", revisionId).first();
+  const row: RevisionRow | undefined = await revisionQuery().select("v.report", "v.parsed").where("v.id", revisionId).first();
   if (!row) throw notFound("That revision");
-  const findings = await db()("findings as f")
+  const findings: FindingJoinRow[] = await db()("findings as f")
     .join("threads as t", "t.id", "f.thread_id")
     .where("f.revision_id", revisionId)
     .select("f.*", "t.status", db().raw("(select count(*) from comments c where c.thread_id = t.id) as comment_count"))
     .orderBy("f.id", "asc");
   return {
     ...toSummary(row),
-    report: JSON.parse(row.report),
-    layout: JSON.parse(row.parsed),
-    findings: findings.map((f: Row) => ({
-      id: f.id as number,
-      threadId: f.thread_id as number,
-      rule: f.rule as string,
-      severity: f.severity as FindingRowDto["severity"],
-      title: f.title as string,
-      body: f.body as string,
-      contacts: JSON.parse(f.contacts as string),
-      loadCase: (f.load_case as string | null) ?? null,
-      status: f.status as FindingRowDto["status"],
-      comments: Number(f.comment_count),
-    })),
+    report: JSON.parse(row.report!),
+    layout: JSON.parse(row.parsed!),
+    findings: findings.map(toFinding),
   };
 }
 
@@ -160,8 +200,8 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
       overrides: input.overrides && Object.keys(input.overrides).length ? JSON.stringify(input.overrides) : null,
       uploaded_by: user.id,
     });
-    const threads: Row[] = await trx("threads").where({ layout_id: layoutId }).forUpdate();
-    const byFp = new Map(threads.map((t) => [t.fingerprint as string, t]));
+    const threads: ThreadRow[] = await trx("threads").where({ layout_id: layoutId }).forUpdate();
+    const byFp = new Map<string, Pick<ThreadRow, "id" | "status">>(threads.map((t) => [t.fingerprint, t]));
     const seen = new Set<number>();
     for (const f of input.report.findings) {
       let t = byFp.get(f.fingerprint);
@@ -194,12 +234,12 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
             layoutId,
             kind: "reopen",
             actorId: null,
-            threadId: t.id as number,
+            threadId: t.id,
             revisionId,
             detail: { reason: `reappeared in revision ${number}` },
           });
       }
-      seen.add(t.id as number);
+      seen.add(t.id);
       await trx("findings").insert({
         revision_id: revisionId,
         thread_id: t.id,
@@ -220,7 +260,7 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
         layoutId,
         kind: "resolve",
         actorId: null,
-        threadId: t.id as number,
+        threadId: t.id,
         revisionId,
         detail: { reason: `not found in revision ${number}` },
       });
@@ -242,7 +282,7 @@ export async function storeRevision(user: SessionUser, layoutId: number, input: 
     });
     return revisionId as number;
   });
-  const row = await revisionQuery().where("v.id", id).first();
+  const row: RevisionRow = await revisionQuery().where("v.id", id).first();
   return toSummary(row);
 }
 

@@ -27,7 +27,63 @@ export async function threadFollowers(
   return { owner: t.created_by, checker: t.checker_id ?? null, commenters, layoutName: t.name, title: t.title };
 }
 
-type Row = Record<string, unknown>;
+/** A comment joined with its author. */
+interface CommentRow {
+  id: number;
+  thread_id: number;
+  author_id: number;
+  body: string;
+  created_at: Date;
+  edited_at: Date | null;
+  name: string;
+  role: string;
+}
+
+/** An earlier text of an edited comment. */
+interface CommentEditRow {
+  comment_id: number;
+  body: string;
+  replaced_at: Date;
+}
+
+/** A thread joined with its layout, project and the checker who waived it. */
+interface ThreadRow {
+  id: number;
+  layout_id: number;
+  fingerprint: string;
+  rule: string;
+  severity: ThreadDto["severity"];
+  title: string;
+  status: ThreadStatus;
+  waiver_reason: string | null;
+  version: number;
+  layout_name: string;
+  project_id: number;
+  project_name: string;
+  waiver_name: string | null;
+}
+
+/** One appearance of a thread's finding in a revision. */
+interface AppearanceRow {
+  id: number;
+  revision_id: number;
+  number: number;
+  body: string;
+  contacts: string;
+  load_case: string | null;
+}
+
+/** A thread with its last revision number and comment count (findings table). */
+interface ThreadListRow {
+  id: number;
+  rule: string;
+  severity: string;
+  title: string;
+  status: ThreadStatus;
+  comment_count: number | string;
+  last_number: number | null;
+  version: number;
+}
 
 /** When a project has an assigned checker, only that checker decides (waive, reopen, approve). */
 export async function requireProjectChecker(trx: Knex | Knex.Transaction, layoutId: number, user: SessionUser): Promise<void> {
@@ -58,39 +114,39 @@ async function layoutOfThread(threadId: number): Promise<number> {
 
 /** Comments matching `where` (a thread's, or one by id), oldest first, each with its edit history. */
 async function readComments(user: SessionUser, where: Record<string, number>): Promise<CommentDto[]> {
-  const rows: Row[] = await db()("comments as c")
+  const rows: CommentRow[] = await db()("comments as c")
     .join("users as u", "u.id", "c.author_id")
     .where(where)
     .select("c.*", "u.name", "u.role")
     .orderBy("c.id", "asc");
-  const edits: Row[] = rows.length
+  const edits: CommentEditRow[] = rows.length
     ? await db()("comment_edits")
         .whereIn(
           "comment_id",
-          rows.map((c) => c.id as number),
+          rows.map((c) => c.id),
         )
         .orderBy("id", "asc")
     : [];
   const history = new Map<number, { body: string; replacedAt: string }[]>();
   for (const e of edits) {
-    const list = history.get(e.comment_id as number) ?? [];
-    list.push({ body: e.body as string, replacedAt: iso(e.replaced_at) });
-    history.set(e.comment_id as number, list);
+    const list = history.get(e.comment_id) ?? [];
+    list.push({ body: e.body, replacedAt: iso(e.replaced_at) });
+    history.set(e.comment_id, list);
   }
   return rows.map((c) => ({
-    id: c.id as number,
-    author: { id: c.author_id as number, name: c.name as string, role: c.role as string },
-    body: c.body as string,
+    id: c.id,
+    author: { id: c.author_id, name: c.name, role: c.role },
+    body: c.body,
     createdAt: iso(c.created_at),
     editedAt: isoOrNull(c.edited_at),
-    history: history.get(c.id as number) ?? [],
+    history: history.get(c.id) ?? [],
     mine: c.author_id === user.id,
   }));
 }
 
 /** One thread with everything its page shows. */
 export async function getThread(user: SessionUser, threadId: number): Promise<ThreadDto> {
-  const t: Row | undefined = await db()("threads as t")
+  const t: ThreadRow | undefined = await db()("threads as t")
     .join("layouts as l", "l.id", "t.layout_id")
     .join("projects as p", "p.id", "l.project_id")
     .leftJoin("users as w", "w.id", "t.waived_by")
@@ -98,34 +154,34 @@ export async function getThread(user: SessionUser, threadId: number): Promise<Th
     .select("t.*", "l.name as layout_name", "l.project_id", "p.name as project_name", "w.name as waiver_name")
     .first();
   if (!t) throw notFound("That finding");
-  const appearances = await db()("findings as f")
+  const appearances: AppearanceRow[] = await db()("findings as f")
     .join("revisions as v", "v.id", "f.revision_id")
     .where("f.thread_id", threadId)
     .select("f.*", "v.number")
     .orderBy("v.number", "asc");
   const comments = await readComments(user, { "c.thread_id": threadId });
   return {
-    id: t.id as number,
-    layoutId: t.layout_id as number,
-    layoutName: t.layout_name as string,
-    projectId: t.project_id as number,
-    projectName: t.project_name as string,
-    fingerprint: t.fingerprint as string,
-    rule: t.rule as string,
-    severity: t.severity as ThreadDto["severity"],
-    title: t.title as string,
-    status: t.status as ThreadStatus,
-    waiverReason: (t.waiver_reason as string | null) ?? null,
-    waivedBy: (t.waiver_name as string | null) ?? null,
-    version: t.version as number,
-    readOnly: await latestReleased(db(), t.layout_id as number),
-    appearances: appearances.map((f: Row) => ({
-      revisionId: f.revision_id as number,
-      revisionNumber: f.number as number,
-      findingId: f.id as number,
-      body: f.body as string,
-      contacts: JSON.parse(f.contacts as string),
-      loadCase: (f.load_case as string | null) ?? null,
+    id: t.id,
+    layoutId: t.layout_id,
+    layoutName: t.layout_name,
+    projectId: t.project_id,
+    projectName: t.project_name,
+    fingerprint: t.fingerprint,
+    rule: t.rule,
+    severity: t.severity,
+    title: t.title,
+    status: t.status,
+    waiverReason: t.waiver_reason ?? null,
+    waivedBy: t.waiver_name ?? null,
+    version: t.version,
+    readOnly: await latestReleased(db(), t.layout_id),
+    appearances: appearances.map((f) => ({
+      revisionId: f.revision_id,
+      revisionNumber: f.number,
+      findingId: f.id,
+      body: f.body,
+      contacts: JSON.parse(f.contacts) as string[],
+      loadCase: f.load_case ?? null,
     })),
     comments,
     history: await listEvents({ threadId }),
@@ -165,10 +221,8 @@ export async function changeStatus(user: SessionUser, threadId: number, input: z
 export async function mentionedUsers(body: string): Promise<{ id: number; name: string; email: string }[]> {
   const handles = [...new Set([...body.matchAll(/(^|[^\w@])@([a-z0-9._-]{2,40})/gi)].map((m) => m[2].toLowerCase()))];
   if (!handles.length) return [];
-  const users: Row[] = await db()("users").where({ active: true }).select("id", "name", "email");
-  return users
-    .filter((u) => handles.includes(String(u.email).split("@")[0].toLowerCase()))
-    .map((u) => ({ id: u.id as number, name: u.name as string, email: u.email as string }));
+  const users: { id: number; name: string; email: string }[] = await db()("users").where({ active: true }).select("id", "name", "email");
+  return users.filter((u) => handles.includes(u.email.split("@")[0].toLowerCase()));
 }
 
 /** Adds a comment (designers and checkers); records mentions in the history. Notifications: lib/review. */
@@ -217,19 +271,19 @@ export async function listThreads(
 ): Promise<
   { id: number; rule: string; severity: string; title: string; status: ThreadStatus; comments: number; lastRevision: number | null; version: number }[]
 > {
-  const rows: Row[] = await db()("threads as t")
+  const rows: ThreadListRow[] = await db()("threads as t")
     .leftJoin("revisions as v", "v.id", "t.last_revision_id")
     .where("t.layout_id", layoutId)
     .select("t.*", "v.number as last_number", db().raw("(select count(*) from comments c where c.thread_id = t.id) as comment_count"))
     .orderBy("t.id", "asc");
   return rows.map((r) => ({
-    id: r.id as number,
-    rule: r.rule as string,
-    severity: r.severity as string,
-    title: r.title as string,
-    status: r.status as ThreadStatus,
+    id: r.id,
+    rule: r.rule,
+    severity: r.severity,
+    title: r.title,
+    status: r.status,
     comments: Number(r.comment_count),
-    lastRevision: (r.last_number as number | null) ?? null,
-    version: r.version as number,
+    lastRevision: r.last_number ?? null,
+    version: r.version,
   }));
 }

@@ -33,11 +33,22 @@ export function forgetTokens(): void {
   verified.clear();
 }
 
-function toDto(r: Record<string, unknown>): TokenDto {
+/** An API token row (the hash is never mapped out). */
+interface TokenRow {
+  id: number;
+  user_id: number;
+  name: string;
+  prefix: string;
+  created_at: Date;
+  last_used_at: Date | null;
+  revoked_at: Date | null;
+}
+
+function toDto(r: TokenRow): TokenDto {
   return {
-    id: r.id as number,
-    name: r.name as string,
-    prefix: r.prefix as string,
+    id: r.id,
+    name: r.name,
+    prefix: r.prefix,
     createdAt: iso(r.created_at),
     lastUsedAt: isoOrNull(r.last_used_at),
     revokedAt: isoOrNull(r.revoked_at),
