@@ -23,7 +23,14 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
   let records: { record: string[]; info: { lines: number } }[];
   // csv-parse types the `info: true` result loosely; the shape is { record, info }
   try {
-    records = parse(text.replace(/^\uFEFF/, ""), { info: true, skip_empty_lines: true, trim: true, relax_quotes: false }) as unknown as typeof records;
+    // rows of the wrong width are reported below with the rest, not as the only error
+    records = parse(text.replace(/^\uFEFF/, ""), {
+      info: true,
+      skip_empty_lines: true,
+      trim: true,
+      relax_quotes: false,
+      relax_column_count: true,
+    }) as unknown as typeof records;
   } catch (e) {
     const err = e as Error & { lines?: number; code?: string };
     const detail =
@@ -54,6 +61,9 @@ export function parseCsvLayout(text: string, options: CsvOptions = {}): ParseRes
   const where = new Map<string, string>();
   rows.forEach(({ record, info }, i) => {
     const line = info.lines;
+    if (record.length !== header.length) {
+      errors.push({ location: `line ${line}`, message: `this row has ${record.length} columns; the header has ${header.length}` });
+    }
     const cell = (name: string) => (col(name) >= 0 ? (record[col(name)] ?? "") : "");
     const loc = (name: string) => `line ${line}, column ${col(name) + 1} (${name})`;
     const c: Record<string, unknown> = {};

@@ -88,6 +88,8 @@ const loadSchema = z.object({
   moment: vec3.optional(),
 });
 
+const loadCaseSchema = z.object({ id: identifier, gravity: vec3.optional(), loads: z.array(identifier).optional() });
+
 const pointSchema = z.object({ id: identifier, body: identifier, point: vec3, allowance: positive.optional() });
 
 export const rawLayoutSchema = z.object({
@@ -120,10 +122,7 @@ export const rawLayoutSchema = z.object({
     .array(pointSchema)
     .max(MAX_CONTACTS, { error: `has more than ${MAX_CONTACTS} points` })
     .default([]),
-  loadCases: z
-    .array(z.object({ id: identifier, gravity: vec3.optional(), loads: z.array(identifier).optional() }))
-    .max(100, { error: "has more than 100 load cases" })
-    .optional(),
+  loadCases: z.array(loadCaseSchema).max(100, { error: "has more than 100 load cases" }).optional(),
   groundMaterial: identifier.optional(),
   temperatureSwing: positive.optional(),
   defaultScatter: nonNegative.optional(),
@@ -184,6 +183,61 @@ function valueAt(raw: unknown, path: readonly PropertyKey[]): unknown {
   return v;
 }
 
+const itemNames: Record<string, string> = {
+  bodies: "body",
+  materials: "material",
+  contacts: "contact",
+  flexures: "flexure",
+  loads: "load",
+  points: "point",
+  loadCases: "load case",
+};
+
+/**
+ * A person's sentence for a schema issue: which item (by its id when it has one), which field, what is
+ * wrong and the offending value — "contact 'S2': normal[2] must be a number (got "x")".
+ */
+function issueMessage(issue: z.core.$ZodIssue, raw: unknown): string {
+  const path = issue.path;
+  const desc = describeIssue(issue, raw);
+  const value = valueAt(raw, path);
+  const shown = value === undefined || (typeof value === "object" && value !== null) ? "" : ` (got ${JSON.stringify(value).slice(0, 60)})`;
+  const list = typeof path[0] === "string" ? itemNames[path[0]] : undefined;
+  if (list && typeof path[1] === "number") {
+    const item = valueAt(raw, path.slice(0, 2)) as Record<string, unknown> | undefined;
+    const id = item && typeof item.id === "string" ? `'${item.id}'` : `#${path[1] + 1}`;
+    const rest = path.slice(2);
+    const field = rest.length ? rest.map((k, j) => (typeof k === "number" ? `[${k}]` : `${j ? "." : ""}${String(k)}`)).join("") : "entry";
+    return `${list} ${id}: ${field} ${desc}${shown}`;
+  }
+  const field = path.length ? path.map((k) => (typeof k === "number" ? `[${k}]` : String(k))).join(".") : "file";
+  return `${field} ${desc}${shown}`;
+}
+
+/** The parts of a refused file that do parse, item by item (others null, positions kept), for the reference checks. */
+function salvage(raw: unknown): Layout {
+  const r = (raw && typeof raw === "object" ? raw : {}) as Record<string, unknown>;
+  const items = <T>(key: string, schema: z.ZodType<T>): T[] =>
+    Array.isArray(r[key]) ? (r[key] as unknown[]).map((item) => (schema.safeParse(item).success ? schema.parse(item) : (null as T))) : [];
+  const top = <T>(schema: z.ZodType<T>, v: unknown): T | undefined => (schema.safeParse(v).success ? schema.parse(v) : undefined);
+  return {
+    format: FORMAT,
+    name: "",
+    units: { length: "mm", force: "N" },
+    gravity: [0, 0, -9.80665],
+    tolerance: 1e-6,
+    intendedFreedoms: 0,
+    bodies: items("bodies", bodySchema),
+    materials: items("materials", materialSchema),
+    contacts: items("contacts", contactSchema) as Layout["contacts"],
+    flexures: items("flexures", flexureSchema) as Layout["flexures"],
+    loads: items("loads", loadSchema),
+    points: items("points", pointSchema),
+    loadCases: Array.isArray(r.loadCases) ? (items("loadCases", loadCaseSchema) as Layout["loadCases"]) : undefined,
+    groundMaterial: top(identifier, r.groundMaterial),
+  };
+}
+
 function describeIssue(issue: z.core.$ZodIssue, raw: unknown): string {
   if (issue.code === "invalid_type" && valueAt(raw, issue.path) === undefined) return "is required";
   if (issue.code === "unrecognized_keys") return issue.message;
@@ -197,12 +251,11 @@ function describeIssue(issue: z.core.$ZodIssue, raw: unknown): string {
 export function validateRaw(raw: unknown, locate: (ptr: string) => string = (p) => p, library: Material[] = []): ParseResult {
   const parsed = rawLayoutSchema.safeParse(raw);
   if (!parsed.success) {
-    const errors = parsed.error.issues.slice(0, 200).map((issue) => {
-      const ptr = pointer(issue.path);
-      const field = issue.path.length ? String(issue.path[issue.path.length - 1]) : "file";
-      return { location: locate(ptr), message: `${field} ${describeIssue(issue, raw)}` };
-    });
-    return { ok: false, errors };
+    const errors = parsed.error.issues.slice(0, 200).map((issue) => ({ location: locate(pointer(issue.path)), message: issueMessage(issue, raw) }));
+    // one pass: the references of the items that did parse are checked too, so a file's every error comes at once
+    const seen = new Set(errors.map((e) => e.location));
+    const more = crossCheck(salvage(raw), locate, library).filter((e) => !seen.has(e.location));
+    return { ok: false, errors: [...errors, ...more].slice(0, 200) };
   }
   const layout = parsed.data as Layout;
   for (const c of layout.contacts) c.normal = c.normal as Layout["contacts"][number]["normal"];
@@ -222,6 +275,7 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string, library: Ma
   const uniq = (list: { id: string }[], key: string, what: string) => {
     const seen = new Map<string, number>();
     list.forEach((item, i) => {
+      if (!item) return;
       if (seen.has(item.id)) err(`/${key}/${i}/id`, `${what} id '${item.id}' is used twice (first at /${key}/${seen.get(item.id)})`);
       else seen.set(item.id, i);
     });
@@ -235,14 +289,17 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string, library: Ma
   if (layout.loadCases) uniq(layout.loadCases, "loadCases", "load case");
 
   layout.bodies.forEach((b, i) => {
+    if (!b) return;
     if (b.id === GROUND) err(`/bodies/${i}/id`, "'ground' is the fixed body and may not be declared");
     if (b.mass !== undefined && !b.centerOfMass) err(`/bodies/${i}/centerOfMass`, "centerOfMass is required when mass is given");
   });
   layout.materials.forEach((m, i) => {
+    if (!m) return;
     if (builtinMaterialIds.includes(m.id)) err(`/materials/${i}/id`, `material id '${m.id}' is a built-in material and may not be redefined`);
   });
   const knownMaterial = (id: string) => materials.has(id) || builtinMaterialIds.includes(id) || library.some((m) => m.id === id);
   layout.contacts.forEach((c, i) => {
+    if (!c) return;
     if (c.body === GROUND) err(`/contacts/${i}/body`, "body may not be 'ground' (put ground in 'on')");
     else if (!bodies.has(c.body)) err(`/contacts/${i}/body`, `body '${c.body}' is not declared`);
     if (c.on !== GROUND && !bodies.has(c.on)) err(`/contacts/${i}/on`, `body '${c.on}' is not declared`);
@@ -258,15 +315,17 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string, library: Ma
     }
   });
   layout.bodies.forEach((b, i) => {
+    if (!b) return;
     if (b.material !== undefined && !knownMaterial(b.material))
       err(`/bodies/${i}/material`, `material '${b.material}' is neither built in nor declared in materials`);
   });
   if (layout.groundMaterial !== undefined && !knownMaterial(layout.groundMaterial)) {
     err("/groundMaterial", `material '${layout.groundMaterial}' is neither built in nor declared in materials`);
   }
-  const rowIds = new Map<string, string>(layout.contacts.map((c, i) => [c.id, `/contacts/${i}`]));
+  const rowIds = new Map<string, string>(layout.contacts.flatMap((c, i) => (c ? [[c.id, `/contacts/${i}`] as [string, string]] : [])));
   const flexures = layout.flexures ?? [];
   flexures.forEach((f, i) => {
+    if (!f) return;
     const at = `/flexures/${i}`;
     if (f.body === GROUND) err(`${at}/body`, "body may not be 'ground' (put ground in 'on')");
     else if (!bodies.has(f.body)) err(`${at}/body`, `body '${f.body}' is not declared`);
@@ -283,17 +342,19 @@ function crossCheck(layout: Layout, locate: (ptr: string) => string, library: Ma
       else rowIds.set(id, at);
     }
   });
-  const rows = layout.contacts.length + flexures.reduce((n, f) => n + (f.kind === "wire" ? 1 : 3), 0);
+  const rows = layout.contacts.length + flexures.reduce((n, f) => n + (f?.kind === "blade" ? 3 : 1), 0);
   if (rows > MAX_CONTACTS) err("/flexures", `contacts and flexure rows together number ${rows}; the limit is ${MAX_CONTACTS}`);
   layout.loads.forEach((l, i) => {
+    if (!l) return;
     if (!bodies.has(l.body)) err(`/loads/${i}/body`, `body '${l.body}' is not declared`);
   });
   layout.points.forEach((p, i) => {
+    if (!p) return;
     if (!bodies.has(p.body)) err(`/points/${i}/body`, `body '${p.body}' is not declared`);
   });
   const loadIds = new Set(layout.loads.map((l) => l.id));
   layout.loadCases?.forEach((lc, i) =>
-    lc.loads?.forEach((id, j) => {
+    lc?.loads?.forEach((id, j) => {
       if (!loadIds.has(id)) err(`/loadCases/${i}/loads/${j}`, `load '${id}' is not declared in loads`);
     }),
   );

@@ -115,3 +115,26 @@ describe("XML and CSV: new attributes and columns", () => {
     expect(bad[0]).toMatchObject({ location: "line 2, column 8 (scatter)" });
   });
 });
+
+describe("every error of a file in one answer, naming the item and the value", () => {
+  it("JSON: a string in a normal and an undeclared body come together, each with the contact id and the value", () => {
+    const text = JSON.stringify({
+      format: "mount-layout/1",
+      bodies: [{ id: "plate" }],
+      contacts: [
+        { id: "S1", body: "plate", point: [0, 0, 0], normal: [0, 0, "up"] },
+        { id: "S2", body: "bench", point: [1, 0, 0], normal: [0, 0, 1] },
+      ],
+    });
+    expect(errs(parseLayoutText(text, { encoding: "json" }))).toEqual([
+      { location: "/contacts/0/normal/2", message: "contact 'S1': normal[2] must be a number (got \"up\")" },
+      { location: "/contacts/1/body", message: "body 'bench' is not declared" },
+    ]);
+  });
+
+  it("CSV: a row of the wrong width does not hide a bad cell further down", () => {
+    const e = errs(parseLayoutText("id,x,y,z,nx,ny,nz\na,0,0,0,0,0,1,9\nb,1,x,0,0,0,1\n", { encoding: "csv" }));
+    expect(e.map((x) => x.location)).toEqual(["line 2", "line 3, column 3 (y)"]);
+    expect(e[0].message).toMatch(/8 columns; the header has 7/);
+  });
+});

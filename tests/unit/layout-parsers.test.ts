@@ -237,7 +237,7 @@ describe("CSV reader", () => {
     ["empty file", "", "line 1", /empty/],
     ["unknown column", "id,x,y,z,nx,ny,nz,colour\na,0,0,0,0,0,1,red", "line 1, column 8", /unknown column 'colour'/],
     ["missing column", "id,x,y,z,nx,ny\na,0,0,0,0,0", "line 1", /'nz' is missing/],
-    ["short row", "id,x,y,z,nx,ny,nz\na,0,0,0,0,0,1\nb,0,0", "line 3", /different number of columns/],
+    ["short row", "id,x,y,z,nx,ny,nz\na,0,0,0,0,0,1\nb,0,0", "line 3", /3 columns; the header has 7/],
     ["NaN", "id,x,y,z,nx,ny,nz\na,0,NaN,0,0,0,1", "line 2, column 3 (y)", /not a number/],
     ["decimal comma", 'id,x,y,z,nx,ny,nz\na,"1,5",0,0,0,0,1', "line 2, column 2 (x)", /not a number/],
     ["zero normal", "id,x,y,z,nx,ny,nz\na,0,0,0,0,0,0", "line 2, columns 5–7", /zero length/],
