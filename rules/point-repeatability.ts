@@ -3,7 +3,7 @@ import { z } from "zod";
 import { defineRule, fill } from "./types";
 import { rowLabel } from "./describe";
 import { num, vec } from "@/lib/analysis/format";
-import { metresPer, unitLabel } from "@/lib/layout/units";
+import { metresPer } from "@/lib/layout/units";
 
 /** Contributors listed per point in the finding. */
 const TOP = 3;
@@ -29,7 +29,6 @@ export default defineRule({
   check({ layout, analysis }) {
     const rep = analysis.repeatability;
     if (!rep) return [];
-    const u = unitLabel(layout.units.length);
     const toUm = metresPer(layout.units.length) * 1e6;
     const lines: string[] = [];
     if (rep.undetermined) lines.push("The kept seats leave a free motion: the scatter along it is not determined (the smallest motion is shown).", "");
@@ -48,7 +47,7 @@ export default defineRule({
         .map(([c, share]) => `${rowLabel(layout, c)} ${num(share * 100, 3)} %`)
         .join(", ");
       lines.push(
-        `| ${id} | ${vec(p.sigmaUm)} | ${num(three)} µm${exceeds ? " **over**" : ""} | ${allowance === undefined ? "—" : `${num(allowance)} ${u}`} | ${top || "—"} |`,
+        `| ${id} | ${vec(p.sigmaUm)} | ${num(three)} µm${exceeds ? " **over**" : ""} | ${allowance === undefined ? "—" : `${num(allowance * toUm)} µm`} | ${top || "—"} |`,
       );
     }
     if (over.length)

@@ -53,7 +53,7 @@ export default defineRule({
         const exceeds = allowUm !== null && overSwing > allowUm;
         if (exceeds) over.push(id);
         lines.push(
-          `| ${id} | ${vec(p.driftUmPerK)} | ${num(perK)} µm | ${num(overSwing)} µm${exceeds ? " **over**" : ""} | ${allowance === undefined ? "—" : `${num(allowance)} ${u}`} |`,
+          `| ${id} | ${vec(p.driftUmPerK)} | ${num(perK)} µm | ${num(overSwing)} µm${exceeds ? " **over**" : ""} | ${allowUm === null ? "—" : `${num(allowUm)} µm`} |`,
         );
       }
     }

@@ -138,7 +138,7 @@ export function LayoutDrawings({ layout: file, report, emphasis, print = false, 
             {report.seating?.liftOff.includes(activeContact.id) ? " · lifted off" : ""}
           </span>
         ) : (
-          <span className="text-graphite-soft">Point at or tab to a contact to read its coordinates, normal and seated force.</span>
+          !print && <span className="text-graphite-soft">Point at or tab to a contact to read its coordinates, normal and seated force.</span>
         )}
       </div>
       {!emphasis && (

@@ -130,7 +130,7 @@ export function LayoutView({
                     {fmt(r.createdAt)} UTC · {r.uploadedBy}
                   </div>
                   <div className="num">
-                    f {r.counts.freedoms} · k {r.counts.redundancies}
+                    {r.counts.freedoms} free · {r.counts.redundancies} redundant
                   </div>
                 </button>
               </li>
@@ -241,13 +241,14 @@ export function LayoutView({
                 (<Link href={`/projects/${layout.projectId}#rule-overrides`}>why, and who set them</Link>)
               </p>
             )}
-            <LoadCaseTable report={rev.report} />
           </section>
+
+          {/* a reviewer's order: summary, findings, drawings, then the detail tables */}
+          <FindingsTable findings={rev.findings} />
 
           <LayoutDrawings layout={rev.layout} report={rev.report} />
 
-          <FindingsTable findings={rev.findings} />
-
+          <LoadCaseTable report={rev.report} />
           <FlexurePanel layout={rev.layout} />
           <ThermalPanel layout={rev.layout} report={rev.report} />
           <RepeatabilityPanel layout={rev.layout} report={rev.report} />

@@ -1,7 +1,13 @@
-/** Seat forces in every load case side by side, with each seat's worst case marked (least force or lift-off). */
+"use client";
+/** Seat forces in every load case side by side, with each seat's worst case marked (least force or lift-off); collapsed and paginated for large layouts. */
+import { useState } from "react";
 import type { Report } from "@/lib/engine";
 
+/** Rows a page of the table shows. */
+const PAGE = 50;
+
 export function LoadCaseTable({ report }: { report: Report }) {
+  const [page, setPage] = useState(0);
   const cases = report.loadCases.filter((c) => c.seating);
   if (!cases.length) return null;
   const ids = Object.keys(report.seating?.forces ?? cases.find((c) => c.seating?.forces)?.seating?.forces ?? {});
@@ -20,9 +26,13 @@ export function LoadCaseTable({ report }: { report: Report }) {
     return best?.id ?? null;
   };
   const f = report.units.force;
+  const pages = Math.max(1, Math.ceil(contacts.length / PAGE));
+  const shown = contacts.slice(page * PAGE, (page + 1) * PAGE);
   return (
-    <div className="mt-4 overflow-x-auto">
-      <h3 className="mb-1 text-sm font-semibold">Seat forces by load case ({f}; ◀ marks each seat’s worst case)</h3>
+    <details className="sheet overflow-x-auto p-4" open={contacts.length <= 12} data-testid="load-case-details">
+      <summary className="cursor-pointer text-sm font-semibold">
+        Seat forces by load case ({contacts.length} contacts × {cases.length} case{cases.length === 1 ? "" : "s"}, {f}; ◀ marks each seat’s worst case)
+      </summary>
       <table className="tbl text-xs" data-testid="load-case-table">
         <thead>
           <tr>
@@ -35,7 +45,7 @@ export function LoadCaseTable({ report }: { report: Report }) {
           </tr>
         </thead>
         <tbody>
-          {contacts.map((id) => {
+          {shown.map((id) => {
             const w = cases.length > 1 ? worst(id) : null;
             return (
               <tr key={id}>
@@ -55,6 +65,19 @@ export function LoadCaseTable({ report }: { report: Report }) {
           })}
         </tbody>
       </table>
-    </div>
+      {pages > 1 && (
+        <div className="mt-2 flex items-center gap-2 text-xs" data-testid="load-case-pages">
+          <button type="button" className="btn-quiet py-0.5" disabled={page === 0} onClick={() => setPage((p) => p - 1)}>
+            ← previous
+          </button>
+          <span className="num">
+            contacts {page * PAGE + 1}–{Math.min((page + 1) * PAGE, contacts.length)} of {contacts.length}
+          </span>
+          <button type="button" className="btn-quiet py-0.5" disabled={page >= pages - 1} onClick={() => setPage((p) => p + 1)}>
+            next →
+          </button>
+        </div>
+      )}
+    </details>
   );
 }

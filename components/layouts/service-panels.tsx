@@ -143,10 +143,10 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
             },
             {
               key: "allow",
-              label: `allowance (${L})`,
+              label: "allowance (µm)",
               numeric: true,
               sort: (r) => r.allowance ?? Infinity,
-              render: (r) => (r.allowance === undefined ? "—" : num(r.allowance)),
+              render: (r) => (r.allowance === undefined ? "—" : num(r.allowance * toUm)),
             },
           ]}
         />
@@ -180,7 +180,6 @@ export function RepeatabilityPanel({ layout, report }: { layout: Layout; report:
   const ids = Object.keys(rep?.points ?? {});
   const [pointId, setPointId] = useState(ids[0] ?? "");
   if (!rep || !ids.length) return null;
-  const L = lengthLabel(layout);
   const toUm = metresPer(layout.units.length) * 1e6;
   const p = rep.points[pointId] ?? rep.points[ids[0]];
   const shares = Object.entries(p.contributions)
@@ -223,10 +222,10 @@ export function RepeatabilityPanel({ layout, report }: { layout: Layout; report:
           },
           {
             key: "allow",
-            label: `allowance (${L})`,
+            label: "allowance (µm)",
             numeric: true,
             sort: (r) => r.allowance ?? Infinity,
-            render: (r) => (r.allowance === undefined ? "—" : num(r.allowance)),
+            render: (r) => (r.allowance === undefined ? "—" : num(r.allowance * toUm)),
           },
         ]}
       />

@@ -20,12 +20,15 @@ const schema = {
   },
 };
 
+// units such as µm inside \text{} render well: KaTeX's strict-mode warning about them is noise
+const katex: [typeof rehypeKatex, { strict: "ignore" }] = [rehypeKatex, { strict: "ignore" }];
+
 export function MarkdownView({ source, className = "", mentions = false }: { source: string; className?: string; mentions?: boolean }) {
   return (
     <div className={`markdown ${className}`}>
       <ReactMarkdown
         remarkPlugins={[remarkGfm, remarkMath]}
-        rehypePlugins={mentions ? [[rehypeSanitize, schema], rehypeMentions, rehypeKatex] : [[rehypeSanitize, schema], rehypeKatex]}
+        rehypePlugins={mentions ? [[rehypeSanitize, schema], rehypeMentions, katex] : [[rehypeSanitize, schema], katex]}
       >
         {source}
       </ReactMarkdown>

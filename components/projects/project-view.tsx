@@ -164,6 +164,9 @@ export function ProjectView({
               ))}
             </tbody>
           </table>
+          <p className="px-3 pb-2 pt-1 text-xs text-graphite-soft" data-testid="state-legend">
+            Open findings: ■ errors / ▲ warnings / ● notes (info). State: ◇ release requested, ◆ released.
+          </p>
         </div>
       )}
       <RuleOverrides projectId={projectId} canChange={canOverride} />

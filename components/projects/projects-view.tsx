@@ -57,6 +57,14 @@ export function ProjectsView({ canCreate, checkers }: { canCreate: boolean; chec
                 </a>
                 {p.description && <p className="mt-1 text-sm text-graphite-soft">{p.description}</p>}
                 <dl className="mt-3 grid grid-cols-[auto_1fr] gap-x-3 text-xs text-graphite-soft">
+                  <dt>Layouts</dt>
+                  <dd className="num" data-testid="project-layouts">
+                    {p.layouts}
+                  </dd>
+                  <dt>Open findings</dt>
+                  <dd className="num" data-testid="project-open">
+                    {p.openFindings}
+                  </dd>
                   <dt>Checker</dt>
                   <dd>{p.checker?.name ?? "not assigned"}</dd>
                   <dt>Created</dt>

@@ -69,7 +69,7 @@ export async function seed(knex: Knex): Promise<void> {
       [
         "Four semi-firm feet on a rigid plate: the warp mode takes",
         "",
-        "$$\\Delta F = \\frac{k\\,\\delta}{4} = \\frac{40\\ \\text{N/µm} \\times 1\\ \\text{µm}}{4} = 10\\ \\text{N}$$",
+        "$$\\Delta F = \\frac{k\\,\\delta}{4} = \\frac{40\\ \\text{N}/\\mu\\text{m} \\times 1\\ \\mu\\text{m}}{4} = 10\\ \\text{N}$$",
         "",
         "| bench warp | foot force change | plate |",
         "|---|---|---|",

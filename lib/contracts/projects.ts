@@ -8,6 +8,10 @@ export interface ProjectDto {
   checker: { id: number; name: string } | null;
   createdBy: string | null;
   createdAt: string;
+  /** layouts in the project */
+  layouts: number;
+  /** findings open or reopened on the layouts' newest revisions */
+  openFindings: number;
 }
 
 export const projectInputSchema = z.object({

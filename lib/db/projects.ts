@@ -19,6 +19,8 @@ interface ProjectRow {
   created_at: Date;
   checker_name?: string | null;
   creator_name?: string | null;
+  layout_count?: number | string;
+  open_count?: number | string;
 }
 
 function toDto(row: ProjectRow): ProjectDto {
@@ -29,6 +31,8 @@ function toDto(row: ProjectRow): ProjectDto {
     checker: row.checker_id ? { id: row.checker_id, name: row.checker_name ?? "" } : null,
     createdBy: row.creator_name ?? null,
     createdAt: iso(row.created_at),
+    layouts: Number(row.layout_count ?? 0),
+    openFindings: Number(row.open_count ?? 0),
   };
 }
 
@@ -36,7 +40,15 @@ function baseQuery() {
   return db()<ProjectRow>("projects as p")
     .leftJoin("users as c", "c.id", "p.checker_id")
     .leftJoin("users as u", "u.id", "p.created_by")
-    .select("p.*", "c.name as checker_name", "u.name as creator_name");
+    .select(
+      "p.*",
+      "c.name as checker_name",
+      "u.name as creator_name",
+      db().raw("(select count(*) from layouts l where l.project_id = p.id) as layout_count"),
+      db().raw(
+        "(select count(*) from threads t join layouts l on l.id = t.layout_id where l.project_id = p.id and t.status in ('open', 'reopened')) as open_count",
+      ),
+    );
 }
 
 /** Lists every project, newest first. Every role may read projects. */
