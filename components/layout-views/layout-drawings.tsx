@@ -12,7 +12,20 @@ import { expandFlexures, flexureLength } from "@/lib/layout/flexures";
 import { fitPoints, project, scaleBarLength, toSvg, views, type Fit } from "./projection";
 import { FlexureLayer, PointLayer, ThermalLayer, largestThreeSigmaUm } from "./service-layers";
 import { palette } from "./palette";
-import { BODY_SHAPES, ContactLayer, FeatureLayer, ForceLayer, GhostLayer, LoopLayer, MotionLayer, ScaleBar, type ViewContext } from "./view-layers";
+import {
+  BODY_SHAPES,
+  ContactLayer,
+  FeatureLayer,
+  ForceLayer,
+  GhostLayer,
+  LoopLayer,
+  MotionLayer,
+  OutlineLayer,
+  ScaleBar,
+  labelItems,
+  placeLabels,
+  type ViewContext,
+} from "./view-layers";
 import { usePanZoom } from "./use-pan-zoom";
 import { num } from "@/lib/analysis/format";
 
@@ -63,6 +76,11 @@ export function LayoutDrawings({ layout: file, report, emphasis, print = false, 
   const [showForces, setShowForces] = useState(!!report.seating?.forces);
   const [showFoundation, setShowFoundation] = useState(false);
   const [active, setActive] = useState<string | null>(null);
+  // focus one body: its contacts stand out and every view is fitted to it
+  const [focusBody, setFocusBody] = useState("");
+  const shownEmphasis: Emphasis | undefined = focusBody
+    ? { contacts: layout.contacts.filter((c) => c.body === focusBody || c.on === focusBody).map((c) => c.id), motions: emphasis?.motions }
+    : emphasis;
   const lengthUnit = layout.units.length === "um" ? "µm" : layout.units.length;
   const forceUnit = layout.units.force;
 
@@ -101,6 +119,19 @@ export function LayoutDrawings({ layout: file, report, emphasis, print = false, 
               <input type="checkbox" checked={showFoundation} onChange={(e) => setShowFoundation(e.target.checked)} /> response to 1 µm base warp
             </label>
           )}
+          {layout.bodies.length > 1 && (
+            <label className="flex items-center gap-1">
+              focus on
+              <select className="field w-auto py-0.5 text-xs" value={focusBody} onChange={(e) => setFocusBody(e.target.value)} aria-label="Focus on a body">
+                <option value="">all bodies</option>
+                {layout.bodies.map((b) => (
+                  <option key={b.id} value={b.id}>
+                    {b.id}
+                  </option>
+                ))}
+              </select>
+            </label>
+          )}
         </div>
       )}
       <div className="grid gap-3 lg:grid-cols-2">
@@ -111,7 +142,7 @@ export function LayoutDrawings({ layout: file, report, emphasis, print = false, 
             layout={layout}
             file={file}
             report={report}
-            emphasis={emphasis}
+            emphasis={shownEmphasis}
             print={print}
             show={{ motions: showMotions, loops: showLoops, forces: showForces, foundation: showFoundation }}
             loopContacts={loopContacts}
@@ -190,6 +221,12 @@ function Legend({
 }) {
   return (
     <div className="mt-2 flex flex-wrap gap-x-5 gap-y-1 text-xs text-graphite-soft" data-testid="drawing-legend">
+      <span>
+        <svg width="30" height="12" aria-hidden="true">
+          <polygon points="2,10 8,2 28,4 26,10" fill={palette.outlineFill} stroke={palette.outline} strokeWidth="0.8" />
+        </svg>{" "}
+        body outline: the convex hull of what the file says about the body (its contacts, points and centre of mass), not its true shape
+      </span>
       <span>
         <svg width="30" height="10" aria-hidden="true">
           <circle cx="5" cy="5" r="3" fill="none" stroke="currentColor" />
@@ -272,7 +309,7 @@ function Legend({
   );
 }
 
-interface OneViewProps extends Omit<ViewContext, "px" | "arrow" | "extent" | "scale" | "bar" | "emph" | "towardViewer" | "frame"> {
+interface OneViewProps extends Omit<ViewContext, "px" | "arrow" | "extent" | "scale" | "bar" | "emph" | "towardViewer" | "frame" | "labels"> {
   /** the layout as in the file (flexure elements, points) */
   file: Layout;
 }
@@ -280,8 +317,25 @@ interface OneViewProps extends Omit<ViewContext, "px" | "arrow" | "extent" | "sc
 function OneView(props: OneViewProps) {
   const { view, layout, file, report, emphasis, print, ghosts } = props;
   const zoom = usePanZoom(W, H, print);
-  // the frame follows the revision shown (contacts, flexure ends, points, thermal centres, earlier positions)
+  // the frame follows the revision shown (contacts, flexure ends, points, thermal centres, earlier positions);
+  // a finding or a focused body is fitted to its own contacts
+  const focusKey = emphasis && emphasis.contacts.length ? emphasis.contacts.join("\u0000") : "";
   const fit: Fit = useMemo(() => {
+    const focus = focusKey ? new Set(focusKey.split("\u0000")) : null;
+    if (focus) {
+      const pts = layout.contacts.filter((c) => focus.has(c.id)).map((c) => project(c.point, view));
+      if (pts.length) {
+        const f = fitPoints(pts, W, H, 40);
+        // never closer than a tenth of the whole layout's width, so a single contact keeps its surroundings
+        const all = fitPoints(
+          layout.contacts.map((c) => project(c.point, view)),
+          W,
+          H,
+          40,
+        );
+        return f.scale > all.scale * 10 ? fitPoints(pts, W, H, 40 + ((W - 80) / 2) * (1 - (all.scale * 10) / f.scale)) : f;
+      }
+    }
     const model: Vec3[] = [
       ...layout.contacts.map((c) => c.point),
       ...(file.flexures ?? []).flatMap((f) => (f.kind === "wire" ? [f.from, f.to] : [f.root, f.tip])),
@@ -291,7 +345,7 @@ function OneView(props: OneViewProps) {
     ];
     const pts = model.map((p) => project(p, view));
     return fitPoints(pts.length ? pts : [[0, 0]], W, H, 40);
-  }, [layout, file, report, ghosts, view]);
+  }, [layout, file, report, ghosts, view, focusKey]);
   const extent = Math.max((W - 80) / fit.scale, 1e-9);
   const [r, u] = [view.right, view.up];
   const v: ViewContext = {
@@ -304,7 +358,9 @@ function OneView(props: OneViewProps) {
     emph: (id) => !emphasis || emphasis.contacts.includes(id),
     towardViewer: [r[1] * u[2] - r[2] * u[1], r[2] * u[0] - r[0] * u[2], r[0] * u[1] - r[1] * u[0]],
     frame: zoom.frame,
+    labels: new Map(),
   };
+  v.labels = placeLabels(labelItems(layout, view, v.px, v.emph));
 
   return (
     <div className="relative">
@@ -334,6 +390,7 @@ function OneView(props: OneViewProps) {
         data-view={view.name}
         {...zoom.handlers}
       >
+        <OutlineLayer v={v} file={file} />
         <FeatureLayer v={v} />
         <LoopLayer v={v} />
         <GhostLayer v={v} />

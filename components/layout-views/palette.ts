@@ -9,4 +9,6 @@ export const palette = {
   flexureFill: "#dfe7ee",
   thermal: "#8a5a12",
   repeatability: "#6b3f8a",
+  outline: "#8d8a80",
+  outlineFill: "rgba(60, 58, 52, 0.04)",
 } as const;

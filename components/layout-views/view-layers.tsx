@@ -40,6 +40,154 @@ export interface ViewContext {
   towardViewer: Vec3;
   /** the visible part of the view (SVG units) and the zoom factor */
   frame: { x: number; y: number; w: number; h: number; zoom: number };
+  /** where each label goes (null: left out, it would cover another) — contacts by id, features as "feature:<name>" */
+  labels: Map<string, LabelSpot | null>;
+}
+
+export interface LabelSpot {
+  x: number;
+  y: number;
+  anchor: "start" | "end";
+  box: [number, number, number, number];
+}
+
+/** Approximate text box of a label (SVG units): width from the character count, height from the font size. */
+export function labelBox(x: number, y: number, text: string, fontSize: number, anchor: "start" | "end"): [number, number, number, number] {
+  const w = text.length * fontSize * 0.58;
+  return [anchor === "start" ? x : x - w, y - fontSize * 0.85, w, fontSize * 1.05];
+}
+
+const overlaps = (a: [number, number, number, number], b: [number, number, number, number]) =>
+  a[0] < b[0] + b[2] && b[0] < a[0] + a[2] && a[1] < b[1] + b[3] && b[1] < a[1] + a[3];
+
+/**
+ * Places labels greedily, most important first: each tries a few spots around its anchor point and takes
+ * the first whose box covers no label placed before; a label with no free spot is left out (the read-out
+ * on hover and the finding's table still name it).
+ */
+export function placeLabels(
+  items: { key: string; x: number; y: number; text: string; fontSize: number; spots: [number, number, "start" | "end"][] }[],
+): Map<string, LabelSpot | null> {
+  const placed: [number, number, number, number][] = [];
+  const out = new Map<string, LabelSpot | null>();
+  for (const it of items) {
+    let spot: LabelSpot | null = null;
+    for (const [dx, dy, anchor] of it.spots) {
+      const box = labelBox(it.x + dx, it.y + dy, it.text, it.fontSize, anchor);
+      if (!placed.some((p) => overlaps(p, box))) {
+        spot = { x: it.x + dx, y: it.y + dy, anchor, box };
+        break;
+      }
+    }
+    if (spot) placed.push(spot.box);
+    out.set(it.key, spot);
+  }
+  return out;
+}
+
+/** The label items of one view: feature names, then contact ids (emphasised contacts first). */
+export function labelItems(layout: Layout, view: ViewSpec, px: (p: [number, number]) => [number, number], emph: (id: string) => boolean) {
+  const items: Parameters<typeof placeLabels>[0] = [];
+  for (const f of [...new Set(layout.contacts.map((c) => c.feature).filter((x): x is string => !!x))]) {
+    const { cx, cy, r } = featureCircle(layout, f, view, px);
+    items.push({
+      key: `feature:${f}`,
+      x: cx,
+      y: cy,
+      text: f,
+      fontSize: 8.5,
+      spots: [
+        [-r * 0.7, r + 10, "start"],
+        [-r * 0.7, -r - 4, "start"],
+        [r + 3, 3, "start"],
+        [-r - 3, 3, "end"],
+      ],
+    });
+  }
+  const contacts = [...layout.contacts].sort((a, b) => Number(emph(b.id)) - Number(emph(a.id)));
+  for (const c of contacts) {
+    const [x, y] = px(project(c.point, view));
+    items.push({
+      key: c.id,
+      x,
+      y,
+      text: c.id,
+      fontSize: 8.5,
+      spots: [
+        [6, -6, "start"],
+        [-6, -6, "end"],
+        [6, 13, "start"],
+        [-6, 13, "end"],
+        [9, 3, "start"],
+        [-9, 3, "end"],
+      ],
+    });
+  }
+  return items;
+}
+
+/** A feature's circle in the view: centre of its contacts and a radius that holds them. */
+function featureCircle(layout: Layout, f: string, view: ViewSpec, px: (p: [number, number]) => [number, number]) {
+  const q = layout.contacts.filter((c) => c.feature === f).map((c) => px(project(c.point, view)));
+  const cx = q.reduce((s, p) => s + p[0], 0) / q.length;
+  const cy = q.reduce((s, p) => s + p[1], 0) / q.length;
+  const r = Math.max(10, ...q.map(([x, y]) => Math.hypot(x - cx, y - cy) + 8));
+  return { cx, cy, r };
+}
+
+/** 2-D convex hull (Andrew's monotone chain), counter-clockwise. */
+export function convexHull(points: [number, number][]): [number, number][] {
+  const p = [...points].sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  if (p.length < 3) return p;
+  const cross = (o: [number, number], a: [number, number], b: [number, number]) => (a[0] - o[0]) * (b[1] - o[1]) - (a[1] - o[1]) * (b[0] - o[0]);
+  const lower: [number, number][] = [];
+  for (const q of p) {
+    while (lower.length >= 2 && cross(lower[lower.length - 2], lower[lower.length - 1], q) <= 0) lower.pop();
+    lower.push(q);
+  }
+  const upper: [number, number][] = [];
+  for (const q of [...p].reverse()) {
+    while (upper.length >= 2 && cross(upper[upper.length - 2], upper[upper.length - 1], q) <= 0) upper.pop();
+    upper.push(q);
+  }
+  return [...lower.slice(0, -1), ...upper.slice(0, -1)];
+}
+
+/**
+ * Body outlines: the convex hull of what the file says about each body — its contacts (either side),
+ * functional points, centre of mass and flexure ends — in the view. Not the part's true shape.
+ */
+export function OutlineLayer({ v, file }: { v: ViewContext; file: Layout }) {
+  const { layout, view, px, emph } = v;
+  return (
+    <>
+      {layout.bodies.map((b) => {
+        const model: Vec3[] = [
+          ...layout.contacts.filter((c) => c.body === b.id || c.on === b.id).map((c) => c.point),
+          ...file.points.filter((p) => p.body === b.id).map((p) => p.point),
+          ...(b.centerOfMass ? [b.centerOfMass] : []),
+          ...(file.flexures ?? []).flatMap((f) =>
+            f.body === b.id ? [f.kind === "wire" ? f.to : f.tip] : f.on === b.id ? [f.kind === "wire" ? f.from : f.root] : [],
+          ),
+        ];
+        const hull = convexHull(model.map((p) => px(project(p, view))));
+        if (hull.length < 2) return null;
+        const strong = layout.contacts.some((c) => (c.body === b.id || c.on === b.id) && emph(c.id));
+        return (
+          <polygon
+            key={b.id}
+            data-outline={b.id}
+            points={hull.map((p) => p.join(",")).join(" ")}
+            fill={palette.outlineFill}
+            stroke={palette.outline}
+            strokeWidth={0.8}
+            strokeLinejoin="round"
+            opacity={strong ? 1 : 0.4}
+          />
+        );
+      })}
+    </>
+  );
 }
 
 /** A small arrow head at `to`, pointing from `from`. */
@@ -79,7 +227,7 @@ export function marker(shape: BodyShape, x: number, y: number, r: number, props:
 
 /** Seats: a dashed outline around the contacts of each feature, with its name. */
 export function FeatureLayer({ v }: { v: ViewContext }) {
-  const { layout, view, px } = v;
+  const { layout, view, px, labels } = v;
   return (
     <>
       {[...new Set(layout.contacts.map((c) => c.feature).filter(Boolean))].map((f) => {
@@ -91,9 +239,19 @@ export function FeatureLayer({ v }: { v: ViewContext }) {
         return (
           <g key={f} className="text-graphite-faint">
             <circle cx={cx} cy={cy} r={r} fill="none" stroke="currentColor" strokeWidth={0.6} strokeDasharray="3 2" />
-            <text x={cx - r * 0.7} y={cy + r + 10} fontSize={8.5} fill="currentColor" fontStyle="italic">
-              {f}
-            </text>
+            {labels.get(`feature:${f}`) && (
+              <text
+                x={labels.get(`feature:${f}`)!.x}
+                y={labels.get(`feature:${f}`)!.y}
+                textAnchor={labels.get(`feature:${f}`)!.anchor}
+                fontSize={8.5}
+                fill="currentColor"
+                fontStyle="italic"
+                data-label={`feature:${f}`}
+              >
+                {f}
+              </text>
+            )}
           </g>
         );
       })}
@@ -152,7 +310,7 @@ export function GhostLayer({ v }: { v: ViewContext }) {
 
 /** Contacts: marker (shape = body), normal arrow or line-of-sight mark, loop ring, lift-off cross, warp sign, label; focus and hover set the read-out. */
 export function ContactLayer({ v }: { v: ViewContext }) {
-  const { layout, report, view, px, arrow, emph, emphasis, print, show, loopContacts, bodyShape, active, setActive, lengthUnit, towardViewer } = v;
+  const { layout, report, view, px, arrow, emph, emphasis, print, show, loopContacts, bodyShape, active, setActive, lengthUnit, towardViewer, labels } = v;
   const warp = report.foundation?.warp?.[0];
   const maxWarp = warp ? Math.max(1e-300, ...Object.values(warp.forces).map(Math.abs)) : 1;
   return (
@@ -219,9 +377,18 @@ export function ContactLayer({ v }: { v: ViewContext }) {
                 {warp.forces[c.id] > 0 ? "+" : "−"}
               </text>
             )}
-            <text x={x + 6} y={y - 6} fontSize={8.5} fill={palette.inkSoft}>
-              {c.id}
-            </text>
+            {labels.get(c.id) && (
+              <text
+                x={labels.get(c.id)!.x}
+                y={labels.get(c.id)!.y}
+                textAnchor={labels.get(c.id)!.anchor}
+                fontSize={8.5}
+                fill={palette.inkSoft}
+                data-label={c.id}
+              >
+                {c.id}
+              </text>
+            )}
           </g>
         );
       })}
@@ -274,7 +441,8 @@ export function MotionLayer({ v }: { v: ViewContext }) {
             const [ox, oy] = project(base, view);
             const [dx, dy] = project(s.direction, view);
             const len = Math.hypot(dx, dy);
-            const label = `${s.kind === "translation" ? "T" : s.kind === "rotation" ? "R" : "S"}${i + 1}${s.kind === "screw" ? ` p=${Number(s.pitch!.toPrecision(3))} ${lengthUnit}/rad` : ""}`;
+            // motion labels carry a symbol and a bold italic face so they never read as a contact id
+            const label = `${s.kind === "translation" ? "⇄ T" : s.kind === "rotation" ? "↻ R" : "↻ S"}${i + 1}${s.kind === "screw" ? ` p=${Number(s.pitch!.toPrecision(3))} ${lengthUnit}/rad` : ""}`;
             if (s.kind === "translation") {
               if (len < 0.05) {
                 const [x, y] = px([ox, oy]);
@@ -282,7 +450,7 @@ export function MotionLayer({ v }: { v: ViewContext }) {
                   <g key={`${i}-${b}`} data-motion={i} data-kind="translation">
                     <circle cx={x} cy={y} r={11} fill="none" stroke={palette.accent} strokeWidth={2} />
                     <circle cx={x} cy={y} r={2.5} fill={palette.accent} />
-                    <text x={x + 13} y={y + 4} fontSize={10} fill={palette.accent}>
+                    <text x={x + 13} y={y + 4} fontSize={10} fontWeight={700} fontStyle="italic" fill={palette.accent} data-motion-label="">
                       {label}
                     </text>
                   </g>
@@ -295,7 +463,7 @@ export function MotionLayer({ v }: { v: ViewContext }) {
                   <line x1={a[0]} y1={a[1]} x2={z[0]} y2={z[1]} stroke={palette.accent} strokeWidth={2.2} />
                   <path d={arrowPath(a, z, 8)} fill={palette.accent} />
                   <path d={arrowPath(z, a, 8)} fill={palette.accent} />
-                  <text x={z[0] + 4} y={z[1] - 4} fontSize={10} fill={palette.accent}>
+                  <text x={z[0] + 4} y={z[1] - 4} fontSize={10} fontWeight={700} fontStyle="italic" fill={palette.accent} data-motion-label="">
                     {label}
                   </text>
                 </g>
@@ -309,7 +477,7 @@ export function MotionLayer({ v }: { v: ViewContext }) {
                   <path d={`M${cx + 14},${cy} A14,14 0 1,1 ${cx},${cy - 14}`} fill="none" stroke={palette.accent} strokeWidth={1.6} />
                   <path d={arrowPath([cx - 4, cy - 15], [cx, cy - 14], 6)} fill={palette.accent} />
                   <path d={`M${cx - 4},${cy} h8 M${cx},${cy - 4} v8`} stroke={palette.accent} strokeWidth={1} />
-                  <text x={cx + 16} y={cy + 14} fontSize={10} fill={palette.accent}>
+                  <text x={cx + 16} y={cy + 14} fontSize={10} fontWeight={700} fontStyle="italic" fill={palette.accent} data-motion-label="">
                     {label}
                   </text>
                 </g>
@@ -333,7 +501,7 @@ export function MotionLayer({ v }: { v: ViewContext }) {
                   strokeWidth={1.4}
                 />
                 <path d={arrowPath([mx - nx + 2, my - ny + 2], [mx - nx, my - ny], 5)} fill={palette.accent} />
-                <text x={z[0] + 3} y={z[1] + 12} fontSize={10} fill={palette.accent}>
+                <text x={z[0] + 3} y={z[1] + 12} fontSize={10} fontWeight={700} fontStyle="italic" fill={palette.accent} data-motion-label="">
                   {label}
                 </text>
               </g>

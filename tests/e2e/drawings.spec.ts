@@ -76,3 +76,39 @@ test("the layout page shows the temperature panel, the error budget and the flex
   await expect(page.getByTestId("flexure-panel")).toContainText("N/mm");
   await expect(page.locator('svg[data-view] [data-kind="blade"]')).toHaveCount(8);
 });
+
+test("labels do not overlap on the breadboard, and a finding's views are fitted to its contacts", async ({ page }) => {
+  await signInAs(page, "checker");
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Interferometer breadboard" }).click();
+  await page.getByRole("link", { name: "Breadboard support" }).click();
+  await expect(page.locator("svg[data-view]")).toHaveCount(4);
+  for (const view of ["plan", "front", "side", "axonometric"]) {
+    const boxes = await page.locator(`svg[data-view="${view}"] [data-label]`).evaluateAll((els) =>
+      els.map((e) => {
+        const r = e.getBoundingClientRect();
+        return [r.left, r.top, r.width, r.height];
+      }),
+    );
+    expect(boxes.length).toBeGreaterThan(3);
+    for (let i = 0; i < boxes.length; i++)
+      for (let j = i + 1; j < boxes.length; j++) {
+        const [a, b] = [boxes[i], boxes[j]];
+        const hit = a[0] < b[0] + b[2] - 0.5 && b[0] < a[0] + a[2] - 0.5 && a[1] < b[1] + b[3] - 0.5 && b[1] < a[1] + a[3] - 0.5;
+        expect(hit, `${view}: labels ${i} and ${j} overlap`).toBe(false);
+      }
+  }
+  await expect(page.locator("svg[data-view] [data-outline]")).toHaveCount(4);
+
+  // the whole plate, then one lifted seat's finding: its views are fitted closer (a shorter scale bar length)
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Detachable instrument plate" }).click();
+  await page.getByRole("link", { name: "Plate coupling" }).click();
+  const whole = parseFloat(await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').innerText());
+  await page
+    .getByTestId("findings-table")
+    .getByRole("link", { name: /inverted: flat lifts off/ })
+    .click();
+  const focused = parseFloat(await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').innerText());
+  expect(focused).toBeLessThan(whole);
+});

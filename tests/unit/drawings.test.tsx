@@ -2,6 +2,7 @@
 import { describe, expect, it } from "vitest";
 import { renderToStaticMarkup } from "react-dom/server";
 import { LayoutDrawings, flexureReadout } from "@/components/layout-views/layout-drawings";
+import { convexHull, labelBox } from "@/components/layout-views/view-layers";
 import { runEngine } from "@/lib/engine";
 import { expandFlexures } from "@/lib/layout/flexures";
 import { example } from "../support/examples";
@@ -119,5 +120,44 @@ describe("LayoutDrawings", () => {
     expect(flexureReadout(layout, "blade-A.s", row, "mm", "N")).toBe(
       " · blade blade-A (row s): length 40 mm, width 60 mm, thickness 0.25 mm, blade-steel, stiffness 168750 N/mm",
     );
+  });
+
+  it("outlines each body in every view (convex hull of its contacts, points and centre of mass)", () => {
+    const { html } = render("breadboard-three-seats");
+    expect(count(html, "data-outline")).toBe(4);
+    expect(html).toContain("body outline: the convex hull");
+    // Andrew's monotone chain on a square with an inner point keeps the four corners [D]
+    expect(
+      convexHull([
+        [0, 0],
+        [2, 0],
+        [2, 2],
+        [0, 2],
+        [1, 1],
+      ]).length,
+    ).toBe(4);
+  });
+
+  it("places labels so that no two label boxes overlap (breadboard, every view)", () => {
+    const { html } = render("breadboard-three-seats");
+    const boxes = [
+      ...html.matchAll(/<text x="([-\d.e]+)" y="([-\d.e]+)" text-anchor="(start|end)" font-size="8.5"[^>]*data-label="([^"]+)"[^>]*>([^<]*)</g),
+    ].map((m) => labelBox(Number(m[1]), Number(m[2]), m[5], 8.5, m[3] as "start" | "end"));
+    expect(boxes.length).toBeGreaterThan(20);
+    // boxes of one view never intersect (views are 4 separate SVGs: compare within each quarter of the list)
+    const perView = boxes.length / 4;
+    for (let v = 0; v < 4; v++) {
+      const b = boxes.slice(v * perView, (v + 1) * perView);
+      for (let i = 0; i < b.length; i++)
+        for (let j = i + 1; j < b.length; j++) {
+          const [p, q] = [b[i], b[j]];
+          expect(p[0] < q[0] + q[2] && q[0] < p[0] + p[2] && p[1] < q[1] + q[3] && q[1] < p[1] + p[3]).toBe(false);
+        }
+    }
+  });
+
+  it("motion labels read differently from contact ids", () => {
+    const { html } = render("breadboard-four-feet");
+    expect(html).toMatch(/data-motion-label="">↻ R3/);
   });
 });
