@@ -325,15 +325,13 @@ function OneView(props: OneViewProps) {
     if (focus) {
       const pts = layout.contacts.filter((c) => focus.has(c.id)).map((c) => project(c.point, view));
       if (pts.length) {
-        const f = fitPoints(pts, W, H, 40);
-        // never closer than a tenth of the whole layout's width, so a single contact keeps its surroundings
-        const all = fitPoints(
-          layout.contacts.map((c) => project(c.point, view)),
-          W,
-          H,
-          40,
-        );
-        return f.scale > all.scale * 10 ? fitPoints(pts, W, H, 40 + ((W - 80) / 2) * (1 - (all.scale * 10) / f.scale)) : f;
+        // fitted to the focused contacts, but never to less than a quarter of the layout, so they keep their surroundings
+        const all = layout.contacts.map((c) => project(c.point, view));
+        const span = Math.max(...[0, 1].map((k) => Math.max(...all.map((p) => p[k])) - Math.min(...all.map((p) => p[k]))), 1e-9);
+        const cx = pts.reduce((s, p) => s + p[0], 0) / pts.length;
+        const cy = pts.reduce((s, p) => s + p[1], 0) / pts.length;
+        const half = span / 8;
+        return fitPoints([...pts, [cx - half, cy - half], [cx + half, cy + half]], W, H, 40);
       }
     }
     const model: Vec3[] = [

@@ -53,8 +53,9 @@ export interface LabelSpot {
 
 /** Approximate text box of a label (SVG units): width from the character count, height from the font size. */
 export function labelBox(x: number, y: number, text: string, fontSize: number, anchor: "start" | "end"): [number, number, number, number] {
-  const w = text.length * fontSize * 0.58;
-  return [anchor === "start" ? x : x - w, y - fontSize * 0.85, w, fontSize * 1.05];
+  // generous for the UI face (Inter, upright or italic): digits and capitals run about 0.6–0.65 em wide
+  const w = text.length * fontSize * 0.68 + 2;
+  return [anchor === "start" ? x - 1 : x - w + 1, y - fontSize * 0.95, w, fontSize * 1.3];
 }
 
 const overlaps = (a: [number, number, number, number], b: [number, number, number, number]) =>

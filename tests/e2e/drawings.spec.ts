@@ -104,11 +104,13 @@ test("labels do not overlap on the breadboard, and a finding's views are fitted 
   await page.goto("/projects");
   await page.getByRole("link", { name: "Detachable instrument plate" }).click();
   await page.getByRole("link", { name: "Plate coupling" }).click();
-  const whole = parseFloat(await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').innerText());
+  await expect(page.getByTestId("findings-table")).toBeVisible();
+  await expect(page.locator("svg[data-view]")).toHaveCount(4);
+  const whole = parseFloat((await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').textContent()) ?? "");
   await page
     .getByTestId("findings-table")
     .getByRole("link", { name: /inverted: flat lifts off/ })
     .click();
-  const focused = parseFloat(await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').innerText());
-  expect(focused).toBeLessThan(whole);
+  const focused = parseFloat((await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').textContent()) ?? "");
+  expect(focused, `scale bar ${focused} on the finding against ${whole} for the whole plate`).toBeLessThan(whole);
 });
