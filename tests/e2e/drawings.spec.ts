@@ -111,6 +111,10 @@ test("labels do not overlap on the breadboard, and a finding's views are fitted 
     .getByTestId("findings-table")
     .getByRole("link", { name: /inverted: flat lifts off/ })
     .click();
+  await expect(page).toHaveURL(/\/findings\//);
+  // the finding's own page (the layout page's drawings may linger during the client-side navigation)
+  await expect(page.getByRole("heading", { name: /Discussion/ })).toBeVisible();
+  await expect(page.locator('[data-emphasised="true"]').first()).toBeAttached();
   const focused = parseFloat((await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').textContent()) ?? "");
   expect(focused, `scale bar ${focused} on the finding against ${whole} for the whole plate`).toBeLessThan(whole);
 });
