@@ -3,17 +3,34 @@
 import Link from "next/link";
 import { useQuery } from "@tanstack/react-query";
 import { useMemo, useState } from "react";
+import { useRouter } from "next/navigation";
 import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { fetchJson } from "@/components/ui/fetch-json";
 import type { DashboardDto } from "@/lib/contracts/dashboard";
 
 type SortKey = "project" | "error" | "warning" | "info" | "underWeek" | "underMonth" | "older";
 
-export function DashboardView() {
-  const [project, setProject] = useState("");
-  const [checker, setChecker] = useState("");
-  const [rule, setRule] = useState("");
-  const [days, setDays] = useState("60");
+/** Blockers listed per layout before "n more". */
+const BLOCKERS_SHOWN = 3;
+
+export interface DashboardFilters {
+  project: string;
+  checker: string;
+  rule: string;
+  days: string;
+}
+
+export function DashboardView({ initial }: { initial?: Partial<DashboardFilters> }) {
+  const router = useRouter();
+  const [filters, setFilters] = useState<DashboardFilters>({ project: "", checker: "", rule: "", days: "60", ...initial });
+  const { project, checker, rule, days } = filters;
+  // every filter lives in the address, so a view can be bookmarked and shared
+  const set = (key: keyof DashboardFilters, value: string) => {
+    const next = { ...filters, [key]: value };
+    setFilters(next);
+    const params = new URLSearchParams(Object.entries(next).filter(([k, v]) => v && !(k === "days" && v === "60")));
+    router.replace(`/dashboard${params.size ? `?${params}` : ""}`, { scroll: false });
+  };
   const [sort, setSort] = useState<{ key: SortKey; desc: boolean }>({ key: "error", desc: true });
   const qs = new URLSearchParams({ project, checker, rule, days }).toString();
   const q = useQuery({ queryKey: ["dashboard", qs], queryFn: () => fetchJson<DashboardDto>(`/api/dashboard?${qs}`) });
@@ -43,7 +60,7 @@ export function DashboardView() {
           <h1>Open findings</h1>
           <p className="text-sm text-graphite-soft">Findings open or reopened on each layout; waived and resolved ones are not counted.</p>
         </div>
-        <select className="field w-auto py-1 text-xs" aria-label="Project" value={project} onChange={(e) => setProject(e.target.value)}>
+        <select className="field w-auto py-1 text-xs" aria-label="Project" value={project} onChange={(e) => set("project", e.target.value)}>
           <option value="">all projects</option>
           {q.data?.projects.map((p) => (
             <option key={p.id} value={p.id}>
@@ -51,7 +68,7 @@ export function DashboardView() {
             </option>
           ))}
         </select>
-        <select className="field w-auto py-1 text-xs" aria-label="Checker" value={checker} onChange={(e) => setChecker(e.target.value)}>
+        <select className="field w-auto py-1 text-xs" aria-label="Checker" value={checker} onChange={(e) => set("checker", e.target.value)}>
           <option value="">all checkers</option>
           {q.data?.checkers.map((c) => (
             <option key={c.id} value={c.id}>
@@ -59,7 +76,7 @@ export function DashboardView() {
             </option>
           ))}
         </select>
-        <select className="field w-auto py-1 text-xs" aria-label="Rule" value={rule} onChange={(e) => setRule(e.target.value)}>
+        <select className="field w-auto py-1 text-xs" aria-label="Rule" value={rule} onChange={(e) => set("rule", e.target.value)}>
           <option value="">all rules</option>
           {q.data?.rules.map((r) => (
             <option key={r} value={r}>
@@ -67,7 +84,7 @@ export function DashboardView() {
             </option>
           ))}
         </select>
-        <select className="field w-auto py-1 text-xs" aria-label="Trend period" value={days} onChange={(e) => setDays(e.target.value)}>
+        <select className="field w-auto py-1 text-xs" aria-label="Trend period" value={days} onChange={(e) => set("days", e.target.value)}>
           {["30", "60", "180", "365"].map((d) => (
             <option key={d} value={d}>
               last {d} days
@@ -171,35 +188,84 @@ export function DashboardView() {
           </section>
 
           <section className="grid gap-4 md:grid-cols-2" aria-label="Release readiness">
-            {(["ready", "blocked"] as const).map((state) => (
-              <div key={state} className="sheet p-4">
-                <h2 className="text-base">{state === "ready" ? "Ready for release" : "Blocked"}</h2>
-                <ul className="mt-2 space-y-2 text-sm" data-testid={`layouts-${state}`}>
-                  {q.data.layouts
-                    .filter((l) => (state === "ready" ? l.state === "ready" || l.state === "requested" : l.state === "blocked"))
-                    .map((l) => (
-                      <li key={l.id}>
-                        <Link href={`/layouts/${l.id}`}>{l.name}</Link>{" "}
-                        <span className="text-xs text-graphite-soft">
-                          {l.project} · r{l.revision}
-                          {l.state === "requested" ? " · release requested" : ""}
-                        </span>
-                        {l.blocking.length > 0 && (
-                          <ul className="ml-4 list-disc text-xs">
-                            {l.blocking.map((b) => (
-                              <li key={b.threadId}>
-                                <Link href={`/findings/${b.threadId}`}>{b.title}</Link>
-                              </li>
-                            ))}
-                          </ul>
-                        )}
-                      </li>
-                    ))}
-                </ul>
-              </div>
-            ))}
+            <ReadyList layouts={q.data.layouts.filter((l) => l.state === "ready" || l.state === "requested")} />
+            <BlockedList layouts={q.data.layouts.filter((l) => l.state === "blocked")} rule={rule} />
           </section>
         </>
+      )}
+    </div>
+  );
+}
+
+type LayoutState = DashboardDto["layouts"][number];
+
+/** Layouts whose newest revision has no open error: ready, or waiting for a checker. */
+function ReadyList({ layouts }: { layouts: LayoutState[] }) {
+  return (
+    <div className="sheet p-4">
+      <h2 className="text-base">Ready for release</h2>
+      {layouts.length === 0 ? (
+        <p className="mt-2 text-sm text-graphite-soft" data-testid="layouts-ready">
+          None: every layout in this view is released or still has open errors.
+        </p>
+      ) : (
+        <ul className="mt-2 space-y-1 text-sm" data-testid="layouts-ready">
+          {layouts.map((l) => (
+            <li key={l.id}>
+              <Link href={`/layouts/${l.id}`}>{l.name}</Link>{" "}
+              <span className="text-xs text-graphite-soft">
+                {l.project} · r{l.revision}
+                {l.state === "requested" ? " · release requested" : " · release not yet requested"}
+              </span>
+            </li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}
+
+/** Layouts held back by open errors, grouped by project, each with its first blockers and how many more. */
+function BlockedList({ layouts, rule }: { layouts: LayoutState[]; rule: string }) {
+  const byProject = new Map<string, LayoutState[]>();
+  for (const l of layouts) byProject.set(l.project, [...(byProject.get(l.project) ?? []), l]);
+  return (
+    <div className="sheet p-4">
+      <h2 className="text-base">Blocked{rule ? ` by ${rule}` : ""}</h2>
+      {layouts.length === 0 ? (
+        <p className="mt-2 text-sm text-graphite-soft" data-testid="layouts-blocked">
+          None{rule ? ` blocked by ${rule}` : ""}.
+        </p>
+      ) : (
+        <div className="mt-2 space-y-3 text-sm" data-testid="layouts-blocked">
+          {[...byProject.entries()].map(([projectName, list]) => (
+            <div key={projectName}>
+              <h3 className="text-xs font-semibold text-graphite-soft">{projectName}</h3>
+              <ul className="space-y-1">
+                {list.map((l) => (
+                  <li key={l.id}>
+                    <Link href={`/layouts/${l.id}`}>{l.name}</Link>{" "}
+                    <span className="text-xs text-graphite-soft">
+                      r{l.revision} · {l.blocking.length} open error{l.blocking.length === 1 ? "" : "s"}
+                    </span>
+                    <ul className="ml-4 list-disc text-xs">
+                      {l.blocking.slice(0, BLOCKERS_SHOWN).map((b) => (
+                        <li key={b.threadId}>
+                          <Link href={`/findings/${b.threadId}`}>{b.title}</Link>
+                        </li>
+                      ))}
+                      {l.blocking.length > BLOCKERS_SHOWN && (
+                        <li className="list-none text-graphite-soft" data-testid="blocked-more">
+                          <Link href={`/layouts/${l.id}`}>{l.blocking.length - BLOCKERS_SHOWN} more</Link>
+                        </li>
+                      )}
+                    </ul>
+                  </li>
+                ))}
+              </ul>
+            </div>
+          ))}
+        </div>
       )}
     </div>
   );

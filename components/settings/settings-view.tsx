@@ -45,7 +45,7 @@ export function SettingsView({ name }: { name: string }) {
   return (
     <div className="max-w-4xl space-y-8">
       <h1>Settings for {name}</h1>
-      <section className="sheet space-y-3 p-4" aria-labelledby="tokens-heading">
+      <section className="sheet space-y-3 overflow-x-auto p-4" aria-labelledby="tokens-heading">
         <h2 id="tokens-heading">API tokens</h2>
         <p className="text-sm text-graphite-soft">
           A token lets a CAD export script post layouts as you, with your role. It is shown once; Sixfold keeps only its hash. See the{" "}
@@ -127,7 +127,7 @@ export function SettingsView({ name }: { name: string }) {
           </tbody>
         </table>
       </section>
-      <section className="sheet space-y-2 p-4" aria-labelledby="mail-heading">
+      <section className="sheet space-y-2 overflow-x-auto p-4" aria-labelledby="mail-heading">
         <h2 id="mail-heading">E-mail</h2>
         {mail.data &&
           Object.entries(mail.data.kinds).map(([kind, label]) => {

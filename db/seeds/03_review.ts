@@ -48,6 +48,31 @@ async function thread(knex: Knex, layoutId: number, rule: string): Promise<{ id:
   return { id: t.id, version: t.version };
 }
 
+/**
+ * Spreads a demo layout's history over the past weeks (its events evenly between `fromDays` and `toDays`
+ * ago, and the rows they describe with them), so the dashboard's trend shows a review that converges.
+ * Events of the kinds in `keep` stay at their real time (a filed release report names its own date).
+ */
+async function backdate(knex: Knex, layoutId: number, fromDays: number, toDays: number, keep: string[] = []): Promise<void> {
+  const events: { id: number; kind: string; revision_id: number | null; thread_id: number | null; detail: string }[] = await knex("events")
+    .where({ layout_id: layoutId })
+    .whereNotIn("kind", keep)
+    .orderBy("id");
+  const day = 86400000;
+  const now = Date.now();
+  for (const [i, e] of events.entries()) {
+    const at = new Date(now - (fromDays - ((fromDays - toDays) * i) / Math.max(1, events.length - 1)) * day);
+    await knex("events").where({ id: e.id }).update({ created_at: at });
+    if (e.kind === "upload" && e.revision_id) await knex("revisions").where({ id: e.revision_id }).update({ created_at: at });
+    if (e.kind === "open" && e.thread_id) await knex("threads").where({ id: e.thread_id }).update({ opened_at: at, updated_at: at });
+    if (e.kind === "comment") {
+      const commentId = (JSON.parse(e.detail) as { commentId?: number }).commentId;
+      if (commentId) await knex("comments").where({ id: commentId }).update({ created_at: at });
+    }
+    if (e.kind === "release-request" && e.revision_id) await knex("releases").where({ revision_id: e.revision_id }).update({ requested_at: at });
+  }
+}
+
 export async function seed(knex: Knex): Promise<void> {
   const dana = await user(knex, "designer");
   const chen = await user(knex, "checker");
@@ -85,6 +110,7 @@ export async function seed(knex: Knex): Promise<void> {
     await storeRevision(dana, board, analysed("breadboard-three-seats.json"));
     const rev = await knex("revisions").where({ layout_id: board }).orderBy("number", "desc").first();
     await requestRelease(dana, rev.id);
+    await backdate(knex, board, 38, 16);
   }
 
   // 2. Instrument plate: preload too weak for shipping and inverted handling (open errors block release)
@@ -103,6 +129,7 @@ export async function seed(knex: Knex): Promise<void> {
       lift.id,
       "The 40 N nest spring does not hold the plate in the 2 g lateral shipping case. Increase the preload or add a transport clamp, then re-upload.",
     );
+    await backdate(knex, plate, 12, 9);
   }
 
   // 3. Flexure stage: one redundancy waived with a reason, then released
@@ -125,5 +152,6 @@ export async function seed(knex: Knex): Promise<void> {
     const rev = await knex("revisions").where({ layout_id: stage }).orderBy("number", "desc").first();
     await requestRelease(dana, rev.id);
     await approveRelease(chen, rev.id, (rid, approval) => releaseReportMarkdown(chen, rid, approval));
+    await backdate(knex, stage, 24, 3, ["release-request", "release"]);
   }
 }

@@ -118,17 +118,17 @@ export async function dashboard(_user: SessionUser, f: DashboardFilter): Promise
         )
         .where("fi.severity", "error")
         .whereIn("t.status", ["open", "reopened"])
-        .select("fi.revision_id", "t.id", "t.title")
+        .select("fi.revision_id", "t.id", "t.title", "t.rule")
     : [];
-  const layouts = layoutRows.map(
-    (r: { id: number; name: string; project: string; number: number; revision_id: number; approved_at: Date | null; requested_at: Date | null }) => {
-      const blocking = blockers
-        .filter((b: { revision_id: number }) => b.revision_id === r.revision_id)
-        .map((b: { id: number; title: string }) => ({ threadId: b.id, title: b.title }));
-      const state: DashboardDto["layouts"][number]["state"] = r.approved_at ? "released" : blocking.length ? "blocked" : r.requested_at ? "requested" : "ready";
+  // the state comes from every open error; under a rule filter a blocked layout lists (and is listed for) that rule's blockers only
+  const layouts = layoutRows
+    .map((r: { id: number; name: string; project: string; number: number; revision_id: number; approved_at: Date | null; requested_at: Date | null }) => {
+      const mine = (blockers as { revision_id: number; id: number; title: string; rule: string }[]).filter((b) => b.revision_id === r.revision_id);
+      const state: DashboardDto["layouts"][number]["state"] = r.approved_at ? "released" : mine.length ? "blocked" : r.requested_at ? "requested" : "ready";
+      const blocking = mine.filter((b) => !f.rule || b.rule === f.rule).map((b) => ({ threadId: b.id, title: b.title }));
       return { id: r.id, name: r.name, project: r.project, revision: r.number, state, blocking };
-    },
-  );
+    })
+    .filter((l) => !(f.rule && l.state === "blocked" && l.blocking.length === 0));
   const rules = (await db()("threads").distinct("rule").orderBy("rule")).map((r: { rule: string }) => r.rule);
   const projects = await db()("projects").select("id", "name").orderBy("name");
   const checkers = await db()("users").where({ role: "checker", active: true }).select("id", "name").orderBy("name");

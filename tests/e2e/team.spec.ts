@@ -108,6 +108,18 @@ test("the manager's dashboard shows open findings by project and severity, the t
   await expect(page.getByTestId("dashboard-table")).toContainText("Detachable instrument plate");
   await expect(page.getByTestId("trend-chart")).toBeVisible();
   await expect(page.getByTestId("layouts-blocked")).toContainText("Plate coupling");
+  // four blockers: three shown, then "1 more"
+  await expect(page.getByTestId("blocked-more")).toContainText("1 more");
+  // a filter goes into the address and applies to every panel; the address alone restores it
+  await page.getByLabel("Rule").selectOption("seat-lift-off");
+  await expect(page).toHaveURL(/rule=seat-lift-off/);
+  await expect(page.getByTestId("layouts-blocked")).toContainText("lifts off");
+  await expect(page.getByTestId("layouts-blocked")).not.toContainText("drives a free motion");
+  await page.goto("/dashboard?rule=seat-lift-off&days=30");
+  await expect(page.getByLabel("Rule")).toHaveValue("seat-lift-off");
+  await expect(page.getByLabel("Trend period")).toHaveValue("30");
+  // "Ready for release" says what it holds, or that it holds nothing
+  await expect(page.getByTestId("layouts-ready")).not.toBeEmpty();
   const csv = await page.request.get("/api/dashboard?format=csv");
   expect(await csv.text()).toMatch(/^project,checker,open errors/);
 });
