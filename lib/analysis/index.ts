@@ -4,8 +4,8 @@ import { analyseConstraint, type ConstraintAnalysis } from "./constraint";
 import { analyseStatics, type StaticsResult } from "./statics";
 import { analyseCouplings, type CouplingResult } from "./coupling";
 import { buildRowMap, type RowMap } from "./row-map";
-import { analyseThermal, type ThermalResult } from "./thermal";
-import { analyseRepeatability, type RepeatabilityResult } from "./repeatability";
+import { analyseThermal, expansionCoefficients, type ThermalResult } from "./thermal";
+import { analyseRepeatability, rowScatter, type RepeatabilityResult } from "./repeatability";
 import { expandFlexures, flexureRowIds } from "@/lib/layout/flexures";
 
 export type { ConstraintAnalysis, Motion, Screw, SelfStressState } from "./constraint";
@@ -28,8 +28,8 @@ export interface EngineAnalysis {
   statics: StaticsResult;
   couplings: CouplingResult[];
   flexures: FlexureEntry[];
-  /** kept rows and their stiffness in service (§9, shared with §11) */
-  rowMap: RowMap;
+  /** kept rows and their stiffness in service (§9, shared with §11); null when neither analysis has its inputs */
+  rowMap: RowMap | null;
   thermal: ThermalResult | null;
   repeatability: RepeatabilityResult | null;
 }
@@ -42,7 +42,10 @@ export function analyseLayout(file: Layout): EngineAnalysis {
   const layout = expandFlexures(file);
   const constraint = analyseConstraint(layout);
   const statics = analyseStatics(layout, constraint);
-  const rowMap = buildRowMap(constraint, statics, layout.tolerance);
+  // the kept-row map costs a decomposition of its own: built only when temperature or repeatability will use it
+  const wantsThermal = expansionCoefficients(layout).missing.length === 0;
+  const wantsRepeatability = layout.points.length > 0 && rowScatter(layout).some((s) => s > 0);
+  const rowMap = wantsThermal || wantsRepeatability ? buildRowMap(constraint, statics, layout.tolerance) : null;
   return {
     layout,
     constraint,
@@ -50,7 +53,7 @@ export function analyseLayout(file: Layout): EngineAnalysis {
     couplings: analyseCouplings(layout),
     flexures: (file.flexures ?? []).map((f) => ({ id: f.id, kind: f.kind, rows: flexureRowIds(f) })),
     rowMap,
-    thermal: analyseThermal(layout, constraint, rowMap),
-    repeatability: analyseRepeatability(layout, constraint, rowMap),
+    thermal: rowMap && wantsThermal ? analyseThermal(layout, constraint, rowMap) : null,
+    repeatability: rowMap && wantsRepeatability ? analyseRepeatability(layout, constraint, rowMap) : null,
   };
 }

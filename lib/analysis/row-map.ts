@@ -58,7 +58,10 @@ export function buildRowMap(c: ConstraintAnalysis, statics: StaticsResult, toler
   // the rank is that of the kept scaled rows themselves (analysis.md §9); K > 0 does not change it in
   // exact arithmetic, so the weighted decomposition is truncated at the same count
   let rank = rankOf(svd.s, tolerance);
-  if (source !== "equal" && rows.length > 0 && n > 0) {
+  if (rows.length === m && m > 0) {
+    // every row kept: the rank is the whole matrix's, already decided (§2)
+    rank = Math.min(c.counts.rank, svd.s.filter((v) => v > 0).length);
+  } else if (source !== "equal" && rows.length > 0 && n > 0) {
     const plain = new Matrix(rows.length, n);
     rows.forEach((i, r) => plain.setRow(r, c.A.getRow(i)));
     rank = Math.min(rankOf(svdRight(plain).s, tolerance), svd.s.filter((v) => v > 0).length);
