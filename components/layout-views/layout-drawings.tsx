@@ -386,6 +386,7 @@ function OneView(props: OneViewProps) {
         aria-label={`${view.title} view (${view.projection}) of ${layout.contacts.length} contacts`}
         className="h-auto w-full touch-none select-none rounded-sm border border-paper-line bg-[#fdfbf6]"
         data-view={view.name}
+        ref={zoom.svgRef}
         {...zoom.handlers}
       >
         <OutlineLayer v={v} file={file} />

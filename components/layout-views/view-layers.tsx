@@ -411,7 +411,7 @@ export function ForceLayer({ v }: { v: ViewContext }) {
         const [dx, dy] = project(unitOf(c.normal), view);
         const tip = px([project(c.point, view)[0] + dx * arrow, project(c.point, view)[1] + dy * arrow]);
         return (
-          <g data-force={c.id}>
+          <g key={c.id} data-force={c.id}>
             <line
               x1={x}
               y1={y}

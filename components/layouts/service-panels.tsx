@@ -11,7 +11,34 @@ import type { Layout } from "@/lib/layout/model";
 import { expandFlexures, flexureLength } from "@/lib/layout/flexures";
 import { metresPer } from "@/lib/layout/units";
 import { num, vec } from "@/lib/analysis/format";
-import { SortableTable } from "@/components/ui/sortable-table";
+import { SortableTable, type Column } from "@/components/ui/sortable-table";
+
+/** A µm value compared with the point's allowance: marked "over" when it exceeds it. */
+function againstAllowance<R extends { exceeds: boolean }>(key: string, label: string, value: (r: R) => number): Column<R> {
+  return {
+    key,
+    label,
+    numeric: true,
+    sort: value,
+    render: (r) => (
+      <span className={r.exceeds ? "font-semibold text-severity-warning" : undefined}>
+        {num(value(r))}
+        {r.exceeds ? " over" : ""}
+      </span>
+    ),
+  };
+}
+
+/** The point's allowance, shown in µm whatever the file's length unit. */
+function allowanceColumn<R extends { allowance?: number }>(toUm: number): Column<R> {
+  return {
+    key: "allow",
+    label: "allowance (µm)",
+    numeric: true,
+    sort: (r) => r.allowance ?? Infinity,
+    render: (r) => (r.allowance === undefined ? "—" : num(r.allowance * toUm)),
+  };
+}
 
 const lengthLabel = (layout: Layout) => (layout.units.length === "um" ? "µm" : layout.units.length);
 const mag = (v: number[]) => Math.hypot(...v);
@@ -129,25 +156,8 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
             { key: "id", label: "point", sort: (r) => r.id, render: (r) => r.id },
             { key: "d", label: "drift per K (µm)", sort: (r) => r.perK, render: (r) => vec(r.d as [number, number, number]) },
             { key: "perK", label: "magnitude (µm/K)", numeric: true, sort: (r) => r.perK, render: (r) => num(r.perK) },
-            {
-              key: "over",
-              label: `over ${num(swing)} K (µm)`,
-              numeric: true,
-              sort: (r) => r.over,
-              render: (r) => (
-                <span className={r.exceeds ? "font-semibold text-severity-warning" : undefined}>
-                  {num(r.over)}
-                  {r.exceeds ? " over" : ""}
-                </span>
-              ),
-            },
-            {
-              key: "allow",
-              label: "allowance (µm)",
-              numeric: true,
-              sort: (r) => r.allowance ?? Infinity,
-              render: (r) => (r.allowance === undefined ? "—" : num(r.allowance * toUm)),
-            },
+            againstAllowance<(typeof drifts)[number]>("over", `over ${num(swing)} K (µm)`, (r) => r.over),
+            allowanceColumn(toUm),
           ]}
         />
       )}
@@ -208,25 +218,8 @@ export function RepeatabilityPanel({ layout, report }: { layout: Layout; report:
           { key: "sx", label: "σx (µm)", numeric: true, sort: (r) => r.q.sigmaUm[0], render: (r) => num(r.q.sigmaUm[0]) },
           { key: "sy", label: "σy (µm)", numeric: true, sort: (r) => r.q.sigmaUm[1], render: (r) => num(r.q.sigmaUm[1]) },
           { key: "sz", label: "σz (µm)", numeric: true, sort: (r) => r.q.sigmaUm[2], render: (r) => num(r.q.sigmaUm[2]) },
-          {
-            key: "three",
-            label: "3σ largest semi-axis (µm)",
-            numeric: true,
-            sort: (r) => r.three,
-            render: (r) => (
-              <span className={r.exceeds ? "font-semibold text-severity-warning" : undefined}>
-                {num(r.three)}
-                {r.exceeds ? " over" : ""}
-              </span>
-            ),
-          },
-          {
-            key: "allow",
-            label: "allowance (µm)",
-            numeric: true,
-            sort: (r) => r.allowance ?? Infinity,
-            render: (r) => (r.allowance === undefined ? "—" : num(r.allowance * toUm)),
-          },
+          againstAllowance<(typeof summary)[number]>("three", "3σ largest semi-axis (µm)", (r) => r.three),
+          allowanceColumn(toUm),
         ]}
       />
       <div className="flex flex-wrap items-center gap-2 text-xs">

@@ -99,6 +99,12 @@ test("labels do not overlap on the breadboard, and a finding's views are fitted 
       }
   }
   await expect(page.locator("svg[data-view] [data-outline]")).toHaveCount(4);
+  // the mouse wheel zooms the view under it (and the scale bar stays in its corner)
+  const plan = page.locator('svg[data-view="plan"]');
+  const before = await plan.getAttribute("viewBox");
+  await plan.hover();
+  await page.mouse.wheel(0, -300);
+  await expect(plan).not.toHaveAttribute("viewBox", before ?? "");
 
   // the whole plate, then one lifted seat's finding: its views are fitted closer (a shorter scale bar length)
   await page.goto("/projects");

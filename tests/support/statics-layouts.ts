@@ -25,3 +25,13 @@ export function plate(pts: [number, number][], load?: [number, number, number], 
     ...extra,
   });
 }
+
+/** A plate held 3-2-1 by six orthogonal rows: three vertical seats, two stops along y, one along x, at the origin corner. */
+export const plate321Rows = [
+  { id: "Z1", body: "plate", point: [0, 0, 0], normal: [0, 0, 1] },
+  { id: "Z2", body: "plate", point: [100, 0, 0], normal: [0, 0, 1] },
+  { id: "Z3", body: "plate", point: [0, 100, 0], normal: [0, 0, 1] },
+  { id: "X1", body: "plate", point: [0, 0, 0], normal: [1, 0, 0] },
+  { id: "Y1", body: "plate", point: [0, 0, 0], normal: [0, 1, 0] },
+  { id: "Y2", body: "plate", point: [100, 0, 0], normal: [0, 1, 0] },
+];

@@ -2,21 +2,14 @@
 import rule from "@/rules/point-repeatability";
 import { testRule } from "../../support/rule-tester";
 import { example } from "../../support/examples";
-import { rawLayout } from "../../support/statics-layouts";
+import { plate321Rows, rawLayout } from "../../support/statics-layouts";
 
 /** A plate on six orthogonal rows (3-2-1), scatter s on each; the point sits at the origin stop. */
 const plate = (s: number, allowance?: number) =>
   rawLayout({
     bodies: [{ id: "plate" }],
     defaultScatter: s,
-    contacts: [
-      { id: "Z1", body: "plate", point: [0, 0, 0], normal: [0, 0, 1] },
-      { id: "Z2", body: "plate", point: [100, 0, 0], normal: [0, 0, 1] },
-      { id: "Z3", body: "plate", point: [0, 100, 0], normal: [0, 0, 1] },
-      { id: "X1", body: "plate", point: [0, 0, 0], normal: [1, 0, 0] },
-      { id: "Y1", body: "plate", point: [0, 0, 0], normal: [0, 1, 0] },
-      { id: "Y2", body: "plate", point: [100, 0, 0], normal: [0, 1, 0] },
-    ],
+    contacts: plate321Rows,
     points: [{ id: "probe", body: "plate", point: [0, 0, 0], ...(allowance ? { allowance } : {}) }],
   });
 

@@ -2,7 +2,7 @@
 import rule from "@/rules/thermal-drift";
 import { testRule } from "../../support/rule-tester";
 import { example } from "../../support/examples";
-import { rawLayout } from "../../support/statics-layouts";
+import { plate321Rows, rawLayout } from "../../support/statics-layouts";
 
 /** A plate on three vertical seats and three horizontal stops, with materials; point 200 mm from the seats. */
 const plate = (allowance?: number, swing?: number) =>
@@ -10,14 +10,7 @@ const plate = (allowance?: number, swing?: number) =>
     bodies: [{ id: "plate", material: "aluminium-alloy" }],
     groundMaterial: "bearing-steel",
     ...(swing ? { temperatureSwing: swing } : {}),
-    contacts: [
-      { id: "Z1", body: "plate", point: [0, 0, 0], normal: [0, 0, 1] },
-      { id: "Z2", body: "plate", point: [100, 0, 0], normal: [0, 0, 1] },
-      { id: "Z3", body: "plate", point: [0, 100, 0], normal: [0, 0, 1] },
-      { id: "X1", body: "plate", point: [0, 0, 0], normal: [1, 0, 0] },
-      { id: "Y1", body: "plate", point: [0, 0, 0], normal: [0, 1, 0] },
-      { id: "Y2", body: "plate", point: [100, 0, 0], normal: [0, 1, 0] },
-    ],
+    contacts: plate321Rows,
     points: [{ id: "lens", body: "plate", point: [200, 0, 0], ...(allowance ? { allowance } : {}) }],
   });
 
