@@ -45,7 +45,7 @@ export default defineRule({
         );
       lines.push("", "| support rises 1 µm | largest change | at |", "|---|---|---|");
       for (const [g, col] of Object.entries(f.sensitivity)) {
-        const [at, v] = Object.entries(col).reduce((a, b) => (Math.abs(b[1]) > Math.abs(a[1]) ? b : a));
+        const [at, v] = Object.entries(col).reduce((a, b) => (Math.abs(b[1]) > Math.abs(a[1]) ? b : a), ["—", 0] as [string, number]);
         lines.push(`| ${g} | ${num(v)} ${fu} | ${at} |`);
       }
     } else {

@@ -29,4 +29,6 @@ export const STATICS = {
   forceRoundOff: 1e-13,
   /** foundation entries below this × (max k × 1 µm) are round-off and reported as 0 */
   foundationRoundOff: 1e-12,
+  /** beyond this many foundation entries (ground contacts × contacts), the negligible ones are left out of the report */
+  sparseFoundationEntries: 20000,
 } as const;

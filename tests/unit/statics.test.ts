@@ -260,3 +260,29 @@ describe("equilibrium on random layouts", () => {
     expect(checked).toBeGreaterThanOrEqual(20);
   });
 });
+
+describe("foundation map of a large layout", () => {
+  // analysis.md §8: entries below 1e-12 of the largest may be left out; a missing entry is zero
+  it("leaves out only negligible entries once the map is large, keeping every coupled one", async () => {
+    const { makeLayout, rng } = await import("../support/layouts");
+    const { analyseLayout } = await import("@/lib/analysis");
+    // a bench of 60 mounts each on seven ground pads (one redundant pad each): coupling stays within a mount
+    const r = rng(4242);
+    const specs = Array.from({ length: 60 }, (_, b) =>
+      Array.from({ length: 7 }, (_, k) => ({
+        body: `m${b}`,
+        p: [b * 200 + (r() - 0.5) * 60, (r() - 0.5) * 60, (r() - 0.5) * 60] as [number, number, number],
+        n: (k < 4 ? [r() * 0.2, r() * 0.2, 1] : [r() - 0.5, r() - 0.5, r() - 0.5]) as [number, number, number],
+        stiffness: 1e4,
+      })),
+    ).flat();
+    const l = makeLayout(specs);
+    const f = analyseLayout(l).statics.foundation!;
+    const m = l.contacts.length;
+    expect(m * m).toBeGreaterThan(20000);
+    const kept = Object.values(f.sensitivity).reduce((s, col) => s + Object.keys(col).length, 0);
+    expect(kept).toBeGreaterThan(0);
+    expect(kept).toBeLessThan((m * m) / 10);
+    for (const col of Object.values(f.sensitivity)) for (const v of Object.values(col)) expect(Math.abs(v)).toBeGreaterThan(1e-12 * f.maxPerMicrometre);
+  });
+});

@@ -56,6 +56,12 @@ export function analyseFoundation(ctx: Ctx, first: CaseResult, source: Stiffness
     });
     sensitivity[layout.contacts[j].id] = entry;
   }
+  // large layouts: the map is ground contacts × all contacts; entries below 1e-12 of the largest may be left out
+  // (analysis.md §8, a missing entry is zero), which keeps the report's size in proportion to what is coupled
+  if (ground.length * m > STATICS.sparseFoundationEntries) {
+    for (const col of Object.values(sensitivity))
+      for (const [id, v] of Object.entries(col)) if (Math.abs(v) <= STATICS.foundationRoundOff * max) delete col[id];
+  }
   const warp =
     c.counts.redundancies === 0
       ? []
