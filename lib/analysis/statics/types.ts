@@ -32,12 +32,12 @@ export interface CaseResult {
   /** seats that carry nothing (the part rocks on them) */
   unloaded: string[];
   hertz: Record<string, HertzEntry>;
-  /** per-contact force in contact order (null when not solved) */
+  /** per-contact force in contact order, file force units, positive when the seat pushes (null when not solved) */
   force: number[] | null;
   active: boolean[];
-  /** scaled displacement under the seated load from contact compliance (null when no stiffness magnitude) */
+  /** scaled twist [L·ω; v + ω × c] under the seated load from contact compliance, file length units (null when no stiffness magnitude) */
   displacement: number[] | null;
-  /** tangent stiffness per contact, file units (null when unknown) */
+  /** tangent stiffness per contact, file force per file length (null when unknown) */
   tangent: number[] | null;
 }
 
