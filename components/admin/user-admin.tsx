@@ -5,6 +5,7 @@ import { fetchJson } from "@/components/ui/fetch-json";
 import { useFormPost } from "@/components/ui/use-form-post";
 import { ConfirmButton } from "@/components/ui/confirm-button";
 import { roleLabels, roles, type Role } from "@/lib/roles";
+import { QueryStatus } from "@/components/ui/query-status";
 
 interface UserRow {
   id: number;
@@ -47,18 +48,7 @@ export function UserAdmin({ selfId }: { selfId: number }) {
     onSettled: () => qc.invalidateQueries({ queryKey: ["admin-users"] }),
   });
   const add = useFormPost<{ name: string; email: string; role: Role; password: string }>("/api/admin/users", ["admin-users"]);
-  if (q.isPending)
-    return (
-      <p role="status" className="text-sm text-graphite-soft">
-        Loading users…
-      </p>
-    );
-  if (q.isError)
-    return (
-      <p role="alert" className="text-sm text-severity-error">
-        {(q.error as Error).message}
-      </p>
-    );
+  if (q.isPending || q.isError) return <QueryStatus query={q} loading="Loading users…" />;
   return (
     <section className="sheet space-y-4 overflow-x-auto p-4" aria-labelledby="users-heading">
       <h2 id="users-heading">Users</h2>

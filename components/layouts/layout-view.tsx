@@ -17,6 +17,7 @@ import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
 import type { RevisionSummaryDto } from "@/lib/contracts/revisions";
+import { QueryStatus } from "@/components/ui/query-status";
 
 type RevisionSummary = RevisionSummaryDto;
 
@@ -74,18 +75,7 @@ export function LayoutView({
     onSettled: () => Promise.all([qc.invalidateQueries({ queryKey: ["layout", layoutId] }), qc.invalidateQueries({ queryKey: ["revision", current] })]),
   });
 
-  if (lq.isPending)
-    return (
-      <p role="status" className="text-sm text-graphite-soft">
-        Loading layout…
-      </p>
-    );
-  if (lq.isError)
-    return (
-      <p role="alert" className="text-sm text-severity-error">
-        {(lq.error as Error).message}
-      </p>
-    );
+  if (lq.isPending || lq.isError) return <QueryStatus query={lq} loading="Loading layout…" />;
   const { layout, history } = lq.data;
   const rev = rq.data?.revision;
   const isLatest = rev && latest && rev.id === latest.id;

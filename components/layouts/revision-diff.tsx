@@ -7,6 +7,7 @@ import { SeverityBadge } from "@/components/review/badges";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
 import type { Report } from "@/lib/engine";
 import type { Layout, Vec3 } from "@/lib/layout/model";
+import { QueryStatus } from "@/components/ui/query-status";
 
 interface Diff {
   from: number;
@@ -22,18 +23,7 @@ export function RevisionDiffView({ revisionId, against, layout, report }: { revi
     queryKey: ["diff", revisionId, against],
     queryFn: () => fetchJson<{ diff: Diff }>(`/api/revisions/${revisionId}/diff?against=${against}`),
   });
-  if (q.isPending)
-    return (
-      <p role="status" className="text-sm text-graphite-soft">
-        Comparing…
-      </p>
-    );
-  if (q.isError)
-    return (
-      <p role="alert" className="text-sm text-severity-error">
-        {(q.error as Error).message}
-      </p>
-    );
+  if (q.isPending || q.isError) return <QueryStatus query={q} loading="Comparing…" />;
   const d = q.data.diff;
   return (
     <div className="space-y-3">

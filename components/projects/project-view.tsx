@@ -9,6 +9,7 @@ import { LayoutStateBadge } from "./layout-state";
 import { RuleOverrides } from "./rule-overrides";
 import { MaterialsLibrary } from "./materials-library";
 import type { LayoutSummaryDto } from "@/lib/contracts/layouts";
+import { QueryStatus } from "@/components/ui/query-status";
 
 type LayoutRow = LayoutSummaryDto;
 
@@ -95,18 +96,7 @@ export function ProjectView({
   checkers?: { id: number; name: string }[];
 }) {
   const q = useQuery({ queryKey: ["project", projectId], queryFn: () => fetchJson<ProjectData>(`/api/projects/${projectId}`) });
-  if (q.isPending)
-    return (
-      <p role="status" className="text-sm text-graphite-soft">
-        Loading project…
-      </p>
-    );
-  if (q.isError)
-    return (
-      <p role="alert" className="text-sm text-severity-error">
-        {(q.error as Error).message}
-      </p>
-    );
+  if (q.isPending || q.isError) return <QueryStatus query={q} loading="Loading project…" />;
   const { project, layouts, history } = q.data;
   return (
     <div className="space-y-6">

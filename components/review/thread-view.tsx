@@ -10,6 +10,7 @@ import { SeverityBadge, StatusBadge } from "./badges";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
 import type { CommentDto, ThreadDto } from "@/lib/contracts/threads";
+import { QueryStatus } from "@/components/ui/query-status";
 
 type Comment = CommentDto;
 type Thread = ThreadDto;
@@ -55,18 +56,7 @@ export function ThreadView({
     onSuccess: (data) => qc.setQueryData(key, data),
   });
 
-  if (q.isPending)
-    return (
-      <p role="status" className="text-sm text-graphite-soft">
-        Loading finding…
-      </p>
-    );
-  if (q.isError || !t)
-    return (
-      <p role="alert" className="text-sm text-severity-error">
-        {(q.error as Error)?.message}
-      </p>
-    );
+  if (q.isPending || q.isError || !t) return <QueryStatus query={q} loading="Loading finding…" />;
   const doc = ruleDocs[t.rule];
   const latestRev = t.appearances[t.appearances.length - 1];
 
