@@ -5,6 +5,10 @@
 import { Matrix, solve } from "ml-matrix";
 import { GROUND, type Layout, type Vec3 } from "@/lib/layout/model";
 import { alignBasis, columns, nullSpace, rankOf, svdRight } from "./linalg";
+import type { SparseRows } from "./sparse/rows";
+import { lowSpectrum } from "./sparse/spectrum";
+import { minimumDegreeOrder } from "./sparse/cholesky";
+import { canonicalStatesSparse } from "./sparse/self-stress";
 import { cross, dot, norm, scale, sub, unit } from "./vec";
 
 export interface Screw {
@@ -30,11 +34,16 @@ export interface ConstraintAnalysis {
   bodyIds: string[];
   centroid: Vec3;
   length: number;
-  /** scaled constraint matrix, m × 6N */
-  A: Matrix;
+  /** how the rank analysis was computed: dense SVD (small layouts, the reference) or structured (§12) */
+  method: EngineMethod;
+  /** the scaled constraint matrix, row by row (each row touches at most two bodies) */
+  rows: SparseRows;
+  /** the same matrix dense, m × 6N (built on first use; the dense path and the tests read it) */
+  readonly A: Matrix;
   /** unit normals per contact, in contact order */
   normals: Vec3[];
-  singularValues: number[];
+  /** σ_max of the scaled matrix */
+  sigmaMax: number;
   counts: { bodies: number; contacts: number; rank: number; freedoms: number; redundancies: number; grubler: number };
   conditioning: number;
   weakestDirection: Motion | null;
@@ -43,9 +52,17 @@ export interface ConstraintAnalysis {
   nullBasis: Matrix;
   selfStressDimension: number;
   selfStress: SelfStressState[];
-  /** orthonormal basis of the self-stress space (columns, contact order) */
-  selfStressBasis: Matrix;
 }
+
+export type EngineMethod = "dense" | "structured";
+
+/**
+ * Layouts with more bodies than this go to the structured engine by default (the dense SVD's cost grows
+ * with the cube). Its counts, free motions, conditioning and σ_max agree with the dense path (tests);
+ * its canonical self-stress states do not yet on ill-conditioned layouts, so the dense path stays the
+ * default wherever it answers within the upload time-out.
+ */
+export const DENSE_MAX_BODIES = 80;
 
 export const MAX_SELF_STRESS_LISTED = 50;
 /** relative size below which a twist component counts as zero */
@@ -66,25 +83,42 @@ export function scaling(layout: Layout): { centroid: Vec3; length: number } {
   return { centroid: c.map((x) => (Math.abs(x) < 1e-12 * spread ? 0 : x)) as Vec3, length };
 }
 
-/** Builds the scaled constraint matrix: row i = [((pᵢ − c) × n̂ᵢ)ᵀ / L, n̂ᵢᵀ], + in body's columns, − in on's. */
-export function buildMatrix(layout: Layout, bodyIndex: Map<string, number>, centroid: Vec3, L: number): { A: Matrix; normals: Vec3[] } {
+/** Builds the scaled rows: row i = [((pᵢ − c) × n̂ᵢ)ᵀ / L, n̂ᵢᵀ], + in body's columns, − in on's. */
+export function buildRows(layout: Layout, bodyIndex: Map<string, number>, centroid: Vec3, L: number): { rows: SparseRows; normals: Vec3[] } {
   const m = layout.contacts.length;
-  const A = new Matrix(m, 6 * bodyIndex.size);
+  const N = bodyIndex.size;
+  const rows: SparseRows = { m, N, n: 6 * N, b1: new Int32Array(m), b2: new Int32Array(m), v: new Float64Array(6 * m) };
   const normals: Vec3[] = [];
   layout.contacts.forEach((k, i) => {
     const n = unit(k.normal);
     normals.push(n);
     const mom = scale(cross(sub(k.point, centroid), n), 1 / L);
-    const row = [...mom, ...n];
-    const place = (bodyId: string, sign: number) => {
-      if (bodyId === GROUND) return;
-      const b = bodyIndex.get(bodyId)!;
-      for (let j = 0; j < 6; j++) A.set(i, 6 * b + j, A.get(i, 6 * b + j) + sign * row[j]);
-    };
-    place(k.body, 1);
-    place(k.on, -1);
+    rows.v.set([...mom, ...n], 6 * i);
+    rows.b1[i] = k.body === GROUND ? -1 : bodyIndex.get(k.body)!;
+    rows.b2[i] = k.on === GROUND ? -1 : bodyIndex.get(k.on)!;
   });
-  return { A, normals };
+  return { rows, normals };
+}
+
+/** The dense m × 6N matrix of the rows (a row whose two bodies coincide cancels to zero). */
+export function denseMatrix(R: SparseRows): Matrix {
+  const A = new Matrix(R.m, R.n);
+  for (let i = 0; i < R.m; i++) {
+    for (const [b, sign] of [
+      [R.b1[i], 1],
+      [R.b2[i], -1],
+    ] as const) {
+      if (b < 0) continue;
+      for (let j = 0; j < 6; j++) A.set(i, 6 * b + j, A.get(i, 6 * b + j) + sign * R.v[6 * i + j]);
+    }
+  }
+  return A;
+}
+
+/** Builds the dense scaled constraint matrix (analysis.md §1). */
+export function buildMatrix(layout: Layout, bodyIndex: Map<string, number>, centroid: Vec3, L: number): { A: Matrix; normals: Vec3[] } {
+  const { rows, normals } = buildRows(layout, bodyIndex, centroid, L);
+  return { A: denseMatrix(rows), normals };
 }
 
 /** Presents one scaled twist (unit length) as per-body twists about the origin and screws. */
@@ -129,16 +163,53 @@ function clean(v: Vec3): Vec3 {
   return v.map((x) => (Math.abs(x) < 1e-13 ? 0 : x)) as Vec3;
 }
 
-/** Runs the rank analysis of a validated layout. */
-export function analyseConstraint(layout: Layout): ConstraintAnalysis {
+/** Runs the rank analysis of a validated layout: dense SVD for small layouts, the structured engine (§12) beyond. */
+export function analyseConstraint(layout: Layout, method: EngineMethod = layout.bodies.length > DENSE_MAX_BODIES ? "structured" : "dense"): ConstraintAnalysis {
   const bodyIds = layout.bodies.map((b) => b.id);
   const bodyIndex = new Map(bodyIds.map((id, i) => [id, i]));
   const N = bodyIds.length;
   const m = layout.contacts.length;
   const { centroid, length } = scaling(layout);
-  const { A, normals } = buildMatrix(layout, bodyIndex, centroid, length);
+  const { rows, normals } = buildRows(layout, bodyIndex, centroid, length);
   const n = 6 * N;
+  let dense: Matrix | null = null;
+  const lazyA = () => (dense ??= denseMatrix(rows));
+  const common = { bodyIds, centroid, length, rows, normals, method };
 
+  if (method === "structured") {
+    const ones = new Float64Array(m).fill(1);
+    const spec = lowSpectrum(rows, ones, layout.tolerance, zeroColumns(rows));
+    const r = spec.rank;
+    const nullBasis = new Matrix(n, spec.nullBasis.length);
+    spec.nullBasis.forEach((z, c) => nullBasis.setColumn(c, Array.from(z)));
+    const redundancies = m - r;
+    const selfStress =
+      redundancies > 0
+        ? canonicalStatesSparse(
+            rows,
+            layout.contacts.map((k) => k.id),
+            spec,
+            minimumDegreeOrder(rows, ones),
+            layout.tolerance,
+          ).states
+        : [];
+    return withDense(
+      {
+        ...common,
+        sigmaMax: spec.sigmaMax,
+        counts: { bodies: N, contacts: m, rank: r, freedoms: n - r, redundancies, grubler: 6 * N - m },
+        conditioning: r === 0 || !spec.weakest ? 0 : spec.weakest.sigma / spec.sigmaMax,
+        weakestDirection: r === 0 || !spec.weakest ? null : toMotion(Array.from(spec.weakest.vector), bodyIds, centroid, length),
+        freeMotions: readableMotions(nullBasis, N).map((col) => toMotion(col, bodyIds, centroid, length)),
+        nullBasis,
+        selfStressDimension: redundancies,
+        selfStress,
+      },
+      lazyA,
+    );
+  }
+
+  const A = lazyA();
   const right = svdRight(A);
   const s = right.s;
   const r = rankOf(s, layout.tolerance);
@@ -158,22 +229,35 @@ export function analyseConstraint(layout: Layout): ConstraintAnalysis {
     layout.contacts.map((k) => k.id),
   );
 
-  return {
-    bodyIds,
-    centroid,
-    length,
-    A,
-    normals,
-    singularValues: s,
-    counts: { bodies: N, contacts: m, rank: r, freedoms, redundancies, grubler: 6 * N - m },
-    conditioning,
-    weakestDirection,
-    freeMotions,
-    nullBasis,
-    selfStressDimension: redundancies,
-    selfStress,
-    selfStressBasis,
-  };
+  return withDense(
+    {
+      ...common,
+      sigmaMax: s[0] ?? 0,
+      counts: { bodies: N, contacts: m, rank: r, freedoms, redundancies, grubler: 6 * N - m },
+      conditioning,
+      weakestDirection,
+      freeMotions,
+      nullBasis,
+      selfStressDimension: redundancies,
+      selfStress,
+    },
+    lazyA,
+  );
+}
+
+/** Adds the dense matrix as a property built on first read (and left out of JSON). */
+function withDense(a: Omit<ConstraintAnalysis, "A">, dense: () => Matrix): ConstraintAnalysis {
+  return Object.defineProperty(a, "A", { get: dense, enumerable: false }) as ConstraintAnalysis;
+}
+
+/** Columns no row touches (bodies without contacts): a lower bound on the null dimension. */
+function zeroColumns(R: SparseRows): number {
+  const touched = new Uint8Array(R.N);
+  for (let i = 0; i < R.m; i++) {
+    if (R.b1[i] >= 0) touched[R.b1[i]] = 1;
+    if (R.b2[i] >= 0) touched[R.b2[i]] = 1;
+  }
+  return 6 * touched.reduce((s, t) => s + (t ? 0 : 1), 0);
 }
 
 /**

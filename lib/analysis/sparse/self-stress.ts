@@ -1,0 +1,134 @@
+/**
+ * The canonical self-stress states of analysis.md §2 without the left null space in full.
+ * The pivots of the reduced row-echelon form (contacts in sorted-id order) are the contacts whose row of A
+ * depends on the rows after it; the rest (the lexicographically last row basis of A) is found by one sweep
+ * over the rows in reverse sorted order, each rotated into a growing triangular factor (row-wise Givens QR
+ * in the body graph's elimination order, George and Heath's method). A pivot's state is then the unique
+ * balance λ_p = 1, A_Cᵀ λ_C = −a_pᵀ on the basis rows C, solved with the sparse pseudo-inverse.
+ * Written here because no npm package offers a row-sequential sparse QR.
+ */
+import { MAX_SELF_STRESS_LISTED, type SelfStressState } from "../constraint";
+import { PinvSystem } from "./pinv";
+import { rowDot, type SparseRows } from "./rows";
+import type { LowSpectrum } from "./spectrum";
+
+type SparseVec = Map<number, Float64Array>;
+
+/** Rows of A that form the lexicographically last row basis (by the given order), at threshold tau. */
+export function lastRowBasis(R: SparseRows, sorted: number[], order: Int32Array, tau: number, rank: number): boolean[] {
+  const N = R.N;
+  const pos = new Int32Array(N);
+  order.forEach((b, p) => (pos[b] = p));
+  const slots: (SparseVec | null)[] = new Array(6 * N).fill(null);
+  const inBasis = new Array<boolean>(R.m).fill(false);
+  let accepted = 0;
+  // once `rank` rows are in, every earlier row depends on them (the rank is decided by the singular values)
+  for (let t = sorted.length - 1; t >= 0 && accepted < rank; t--) {
+    const i = sorted[t];
+    const x: SparseVec = new Map();
+    const put = (b: number, sign: number) => {
+      if (b < 0) return;
+      const p = pos[b];
+      const blk = x.get(p) ?? new Float64Array(6);
+      for (let j = 0; j < 6; j++) blk[j] += sign * R.v[6 * i + j];
+      x.set(p, blk);
+    };
+    put(R.b1[i], 1);
+    put(R.b2[i], -1);
+    const rowNorm = () => {
+      let s = 0;
+      for (const blk of x.values()) for (let j = 0; j < 6; j++) s += blk[j] * blk[j];
+      return Math.sqrt(s);
+    };
+    let placed = false;
+    // visit x's blocks in increasing elimination step; rotations only add later blocks
+    while (x.size > 0 && !placed) {
+      let p = Infinity;
+      for (const k of x.keys()) if (k < p) p = k;
+      const blk = x.get(p)!;
+      for (let j = 0; j < 6 && !placed; j++) {
+        const xv = blk[j];
+        if (xv === 0) continue;
+        const c = 6 * p + j;
+        const r = slots[c];
+        if (r) {
+          // Givens rotation that zeroes x_c against the slot's row
+          const rb = r.get(p)!;
+          const a = rb[j];
+          const h = Math.hypot(a, xv);
+          const cs = a / h;
+          const sn = xv / h;
+          const keys = new Set<number>([...r.keys(), ...x.keys()]);
+          for (const q of keys) {
+            let rq = r.get(q);
+            if (!rq) r.set(q, (rq = new Float64Array(6)));
+            let xq = x.get(q);
+            if (!xq) x.set(q, (xq = new Float64Array(6)));
+            for (let jj = q === p ? j : 0; jj < 6; jj++) {
+              const rv = rq[jj];
+              const xw = xq[jj];
+              rq[jj] = cs * rv + sn * xw;
+              xq[jj] = -sn * rv + cs * xw;
+            }
+          }
+          blk[j] = 0;
+        } else {
+          if (rowNorm() <= tau) break;
+          if (Math.abs(xv) <= 1e-10 * rowNorm()) {
+            blk[j] = 0;
+            continue;
+          }
+          // independent: x becomes the slot's row (zeros before column c are dropped)
+          for (let jj = 0; jj < j; jj++) blk[jj] = 0;
+          slots[c] = x;
+          inBasis[i] = true;
+          accepted++;
+          placed = true;
+        }
+      }
+      if (placed) break;
+      if (rowNorm() <= tau) break;
+      x.delete(p);
+    }
+  }
+  return inBasis;
+}
+
+/**
+ * Canonical states: pivots are the rows outside the basis, in sorted order; the state of pivot p has
+ * λ_p = 1, zero on every other pivot, and λ_C = −A_C (A_Cᵀ A_C)⁺ a_pᵀ on the basis rows.
+ */
+export function canonicalStatesSparse(
+  R: SparseRows,
+  contactIds: string[],
+  spectrum: LowSpectrum,
+  order: Int32Array,
+  tolerance: number,
+): { states: SelfStressState[]; basisRows: number } {
+  const sorted = contactIds.map((id, i) => [id, i] as const).sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+  const idx = sorted.map(([, i]) => i);
+  const inBasis = lastRowBasis(R, idx, order, tolerance * spectrum.sigmaMax, spectrum.rank);
+  const basisRows = inBasis.filter(Boolean).length;
+  const pivots = idx.filter((i) => !inBasis[i]).slice(0, MAX_SELF_STRESS_LISTED);
+  if (pivots.length === 0) return { states: [], basisRows };
+  // A_C has the rank of A, so its null space is A's
+  const w = inBasis.map((b) => (b ? 1 : 0));
+  const sys = new PinvSystem(R, w, spectrum, tolerance);
+  const states: SelfStressState[] = [];
+  for (const p of pivots) {
+    const a = new Float64Array(R.n);
+    const o = 6 * p;
+    if (R.b1[p] >= 0) for (let j = 0; j < 6; j++) a[6 * R.b1[p] + j] += R.v[o + j];
+    if (R.b2[p] >= 0) for (let j = 0; j < 6; j++) a[6 * R.b2[p] + j] -= R.v[o + j];
+    const y = sys.apply(a);
+    const lam = new Float64Array(R.m);
+    lam[p] = 1;
+    for (let i = 0; i < R.m; i++) if (inBasis[i]) lam[i] = -rowDot(R, i, y);
+    let max = 0;
+    for (const v of lam) max = Math.max(max, Math.abs(v));
+    const forces: Record<string, number> = {};
+    for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
+    states.push({ pivot: contactIds[p], forces });
+  }
+  return { states, basisRows };
+}

@@ -1,0 +1,201 @@
+/**
+ * The extreme singular values of B = W^½ A without a dense decomposition (analysis.md §2, §12):
+ * σ_max by Lanczos on BᵀB (full reorthogonalisation); the null space (σ < tolerance · σ_max), σ_r and its
+ * right singular vector by subspace iteration with the block Cholesky factor of BᵀB + εI, finished by a
+ * Rayleigh–Ritz step on B itself (an SVD of B Q, so nothing is read off a squared matrix).
+ * Written here because no npm package offers sparse eigen- or singular-value solvers; the small dense
+ * decompositions come from ml-matrix.
+ */
+import { EigenvalueDecomposition, Matrix } from "ml-matrix";
+import { svdRight } from "../linalg";
+import { factorGram, minimumDegreeOrder, solveFactor, type BlockFactor } from "./cholesky";
+import { mulGram, rowDot, type SparseRows } from "./rows";
+
+/** A reproducible pseudo-random sequence (results must not depend on the run). */
+function seeded(seed: number): () => number {
+  let s = seed >>> 0 || 1;
+  return () => {
+    s ^= s << 13;
+    s >>>= 0;
+    s ^= s >>> 17;
+    s ^= s << 5;
+    s >>>= 0;
+    return s / 4294967296 - 0.5;
+  };
+}
+
+const dotv = (a: ArrayLike<number>, b: ArrayLike<number>) => {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
+  return s;
+};
+const normv = (a: ArrayLike<number>) => Math.sqrt(dotv(a, a));
+
+/** Modified Gram–Schmidt, twice (columns that vanish are dropped). */
+export function orthonormalise(cols: Float64Array[]): Float64Array[] {
+  const out: Float64Array[] = [];
+  for (const c0 of cols) {
+    const c = Float64Array.from(c0);
+    const before = normv(c);
+    for (let pass = 0; pass < 2; pass++)
+      for (const q of out) {
+        const d = dotv(q, c);
+        for (let i = 0; i < c.length; i++) c[i] -= d * q[i];
+      }
+    const len = normv(c);
+    if (len > 1e-12 * before && len > 0) out.push(c.map((v) => v / len));
+  }
+  return out;
+}
+
+/** σ_max(B) by Lanczos on BᵀB with full reorthogonalisation. */
+export function sigmaMax(R: SparseRows, w: ArrayLike<number>): number {
+  const n = R.n;
+  if (n === 0) return 0;
+  const rnd = seeded(7);
+  let q = Float64Array.from({ length: n }, () => rnd());
+  q = q.map((v) => v / normv(q));
+  const Q: Float64Array[] = [q];
+  const alpha: number[] = [];
+  const beta: number[] = [];
+  let theta = 0;
+  const steps = Math.min(n, 120);
+  for (let j = 0; j < steps; j++) {
+    const z = mulGram(R, w, Q[j]);
+    const a = dotv(z, Q[j]);
+    alpha.push(a);
+    for (let pass = 0; pass < 2; pass++)
+      for (const qq of Q) {
+        const d = dotv(qq, z);
+        for (let i = 0; i < n; i++) z[i] -= d * qq[i];
+      }
+    const b = normv(z);
+    if (j % 4 === 3 || b < 1e-14 * Math.max(...alpha.map(Math.abs)) || j === steps - 1) {
+      const k = alpha.length;
+      const T = new Matrix(k, k);
+      for (let i = 0; i < k; i++) {
+        T.set(i, i, alpha[i]);
+        if (i + 1 < k) {
+          T.set(i, i + 1, beta[i]);
+          T.set(i + 1, i, beta[i]);
+        }
+      }
+      const top = Math.max(...new EigenvalueDecomposition(T, { assumeSymmetric: true }).realEigenvalues);
+      const settled = Math.abs(top - theta) <= 1e-15 * Math.abs(top);
+      theta = top;
+      if (settled || b < 1e-14 * Math.abs(top)) break;
+    }
+    beta.push(b);
+    Q.push(z.map((v) => v / b));
+  }
+  return Math.sqrt(Math.max(theta, 0));
+}
+
+export interface LowSpectrum {
+  sigmaMax: number;
+  /** numerical rank: singular values above tolerance · σ_max */
+  rank: number;
+  /** orthonormal basis of the null space (σ below the threshold), columns of length n */
+  nullBasis: Float64Array[];
+  /** σ_r and its right singular vector (null when the rank is 0) */
+  weakest: { sigma: number; vector: Float64Array } | null;
+}
+
+/** The block factor of BᵀB + εI, raising ε tenfold while round-off leaves a pivot block indefinite. */
+export function shiftedFactor(R: SparseRows, w: ArrayLike<number>, shift: number, order?: Int32Array): { F: BlockFactor; shift: number } {
+  const ord = order ?? minimumDegreeOrder(R, w);
+  let eps = shift;
+  for (let attempt = 0; attempt < 12; attempt++) {
+    const F = factorGram(R, w, eps, ord);
+    if (F) return { F, shift: eps };
+    eps *= 10;
+  }
+  throw new Error("block Cholesky factor failed at every shift");
+}
+
+/** Projector distance ‖N_new − N_old N_oldᵀ N_new‖_F between two orthonormal column sets. */
+function subspaceGap(oldB: Float64Array[], newB: Float64Array[]): number {
+  if (oldB.length !== newB.length) return Infinity;
+  let sum = 0;
+  for (const v of newB) {
+    const r = Float64Array.from(v);
+    for (const u of oldB) {
+      const d = dotv(u, v);
+      for (let i = 0; i < r.length; i++) r[i] -= d * u[i];
+    }
+    sum += dotv(r, r);
+  }
+  return Math.sqrt(sum);
+}
+
+/**
+ * Rank, null space and the weakest constrained direction of B = W^½ A at the relative tolerance.
+ * `nullHint` is a guess of the null dimension (the block grows when the guess is short).
+ */
+export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: number, nullHint = 0): LowSpectrum {
+  const n = R.n;
+  const smax = sigmaMax(R, w);
+  if (!(smax > 0)) {
+    const basis = Array.from({ length: n }, (_, j) => {
+      const e = new Float64Array(n);
+      e[j] = 1;
+      return e;
+    });
+    return { sigmaMax: 0, rank: 0, nullBasis: basis, weakest: null };
+  }
+  const tau = tolerance * smax;
+  const { F } = shiftedFactor(R, w, (0.1 * tau) ** 2);
+  const rnd = seeded(11);
+  const sqrtW = Array.from(w, (x) => Math.sqrt(x));
+  let p = Math.min(n, nullHint + 4);
+  let Q = orthonormalise(Array.from({ length: p }, () => Float64Array.from({ length: n }, () => rnd())));
+  let prevNull: Float64Array[] = [];
+  let prevWeak: Float64Array | null = null;
+  let prevSigma = NaN;
+  let result: LowSpectrum | null = null;
+  for (let iter = 0; iter < 200; iter++) {
+    const Z = orthonormalise(Q.map((q) => solveFactor(F, q)));
+    // Rayleigh–Ritz on B: singular values and right vectors of B Z
+    const C = new Matrix(R.m, Z.length);
+    for (let c = 0; c < Z.length; c++) for (let i = 0; i < R.m; i++) if (sqrtW[i] !== 0) C.set(i, c, sqrtW[i] * rowDot(R, i, Z[c]));
+    const { s, V } = svdRight(C);
+    const k = Z.length;
+    const sig = Array.from({ length: k }, (_, j) => s[j] ?? 0);
+    // ascending order: column k−1−j of V belongs to sig[k−1−j]
+    const ritz: Float64Array[] = [];
+    const vals: number[] = [];
+    for (let j = k - 1; j >= 0; j--) {
+      const v = new Float64Array(n);
+      for (let c = 0; c < k; c++) {
+        const coef = V.get(c, j);
+        if (coef !== 0) for (let i = 0; i < n; i++) v[i] += coef * Z[c][i];
+      }
+      ritz.push(v);
+      vals.push(sig[j]);
+    }
+    const f = vals.filter((x) => x <= tau).length;
+    if (f >= k - 1 && k < n) {
+      // the block holds no direction above the threshold yet: grow it
+      p = Math.min(n, 2 * k + 4);
+      Q = orthonormalise([...ritz, ...Array.from({ length: p - k }, () => Float64Array.from({ length: n }, () => rnd()))]);
+      prevNull = [];
+      prevWeak = null;
+      continue;
+    }
+    const nullB = ritz.slice(0, f);
+    const weak = f < k ? ritz[f] : null;
+    const sigma = f < k ? vals[f] : NaN;
+    const gapNull = subspaceGap(prevNull, nullB);
+    const gapWeak = weak && prevWeak ? Math.sqrt(Math.max(0, 1 - dotv(weak, prevWeak) ** 2)) : weak ? Infinity : 0;
+    const sigmaSettled = !weak || Math.abs(sigma - prevSigma) <= 1e-14 * sigma;
+    // a repeated σ_r (identical mounts) has no single direction: then only its value must settle
+    const weakUnique = !weak || f + 1 >= k || vals[f + 1] - sigma > 1e-8 * sigma;
+    result = { sigmaMax: smax, rank: n - f, nullBasis: nullB, weakest: weak ? { sigma, vector: weak } : null };
+    if (iter > 0 && gapNull < 1e-12 && (gapWeak < 1e-11 || !weakUnique) && sigmaSettled) break;
+    prevNull = nullB;
+    prevWeak = weak;
+    prevSigma = sigma;
+    Q = ritz;
+  }
+  return result!;
+}
