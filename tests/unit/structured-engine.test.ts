@@ -22,18 +22,30 @@ function spanGap(P: Matrix, Q: Matrix): number {
   return Math.max(0, ...Array.from({ length: R.columns }, (_, c) => Math.hypot(...R.getColumn(c))));
 }
 
-function compare(layout: Layout, d: ConstraintAnalysis, s: ConstraintAnalysis) {
+function compare(layout: Layout, d: ConstraintAnalysis, s: ConstraintAnalysis, states = true): boolean {
   expect(s.method).toBe("structured");
   expect(s.counts).toEqual(d.counts);
   expect(spanGap(d.nullBasis, s.nullBasis)).toBeLessThan(1e-8);
   expect(Math.abs(s.conditioning - d.conditioning)).toBeLessThanOrEqual(1e-9 * Math.max(d.conditioning, 1e-300));
   expect(Math.abs(s.sigmaMax - d.sigmaMax)).toBeLessThanOrEqual(1e-12 * d.sigmaMax);
-  // the canonical self-stress states are not compared here: the structured ones still differ on
-  // ill-conditioned layouts (issue #16 stays open for them), so the engine uses them only beyond DENSE_MAX_BODIES
   expect(s.selfStressDimension).toBe(d.selfStressDimension);
+  // canonical self-stress states, where they are well posed (every coefficient of the reference ≤ 1e3): on
+  // ill-conditioned layouts the choice of pivots is itself delicate and the two paths may differ (issue #16)
+  const wellPosed = states && d.selfStress.every((st) => Math.max(...Object.values(st.forces).map(Math.abs)) <= 1e3);
+  if (wellPosed) {
+    expect(s.selfStress.map((x) => x.pivot)).toEqual(d.selfStress.map((x) => x.pivot));
+    s.selfStress.forEach((state, i) => {
+      const ref = d.selfStress[i].forces;
+      const max = Math.max(...Object.values(ref).map(Math.abs));
+      for (const id of new Set([...Object.keys(ref), ...Object.keys(state.forces)])) {
+        expect(Math.abs((state.forces[id] ?? 0) - (ref[id] ?? 0))).toBeLessThanOrEqual(1e-9 * max);
+      }
+    });
+  }
   // the readable basis of §2 is read off the subspace; it agrees above, and the motions count the same
   expect(s.freeMotions.length).toBe(d.freeMotions.length);
   void layout;
+  return wellPosed;
 }
 
 const sizes = [1, 2, 3, 5, 8, 13, 21, 34];
@@ -41,10 +53,13 @@ const sizes = [1, 2, 3, 5, 8, 13, 21, 34];
 describe("structured engine agrees with the dense reference", () => {
   for (const bodies of sizes) {
     it(`random layouts of ${bodies} bodies (8 seeds each)`, () => {
+      let statesCompared = 0;
       for (let seed = 1; seed <= 8; seed++) {
         const layout = randomLayout(9000 + 97 * bodies + seed, bodies);
-        compare(layout, analyseConstraint(layout, "dense"), analyseConstraint(layout, "structured"));
+        if (compare(layout, analyseConstraint(layout, "dense"), analyseConstraint(layout, "structured"))) statesCompared++;
       }
+      // most random layouts have well-posed states: the comparison above must not be vacuous
+      expect(statesCompared).toBeGreaterThanOrEqual(3);
     }, 120_000);
   }
 
@@ -62,7 +77,8 @@ describe("structured engine agrees with the dense reference", () => {
         const layout = { ...base, tolerance: ref.conditioning * factor };
         const d = analyseConstraint(layout, "dense");
         const s = analyseConstraint(layout, "structured");
-        compare(layout, d, s);
+        // a singular value a decade from the threshold leaves the pivot choice delicate: states not compared
+        compare(layout, d, s, false);
         if (factor < 1) expect(d.counts.rank).toBe(ref.counts.rank);
         else expect(d.counts.rank).toBeLessThan(ref.counts.rank);
       }

@@ -9,7 +9,7 @@
  */
 import { MAX_SELF_STRESS_LISTED, type SelfStressState } from "../constraint";
 import { PinvSystem } from "./pinv";
-import { rowDot, type SparseRows } from "./rows";
+import { addRowT, rowDot, type SparseRows } from "./rows";
 import type { LowSpectrum } from "./spectrum";
 
 type SparseVec = Map<number, Float64Array>;
@@ -124,6 +124,13 @@ export function canonicalStatesSparse(
     const lam = new Float64Array(R.m);
     lam[p] = 1;
     for (let i = 0; i < R.m; i++) if (inBasis[i]) lam[i] = -rowDot(R, i, y);
+    // refinement on the forces themselves: res = Aᵀλ (should be 0), λ_C −= A_C (A_CᵀA_C)⁺ res
+    for (let step = 0; step < 4; step++) {
+      const res = new Float64Array(R.n);
+      for (let i = 0; i < R.m; i++) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
+      const dy = sys.apply(res);
+      for (let i = 0; i < R.m; i++) if (inBasis[i]) lam[i] -= rowDot(R, i, dy);
+    }
     let max = 0;
     for (const v of lam) max = Math.max(max, Math.abs(v));
     const forces: Record<string, number> = {};
