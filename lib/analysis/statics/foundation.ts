@@ -4,6 +4,7 @@
  */
 import { GROUND } from "@/lib/layout/model";
 import { STATICS } from "../tolerances";
+import { addRowT } from "../sparse/rows";
 import { factorStiff, separation, solveWith } from "./solver";
 import type { CaseResult, Ctx, Factor, FoundationResult, StiffnessSource } from "./types";
 
@@ -37,7 +38,7 @@ export function analyseFoundation(ctx: Ctx, first: CaseResult, source: Stiffness
     );
     const Kd = d.map((v, i) => (active[i] ? kFound[i] * v : 0));
     const w = new Array<number>(ctx.n).fill(0);
-    for (let i = 0; i < m; i++) if (Kd[i] !== 0) for (let q = 0; q < ctx.n; q++) w[q] += c.A.get(i, q) * Kd[i];
+    for (let i = 0; i < m; i++) if (Kd[i] !== 0) addRowT(c.rows, i, Kd[i], w);
     const { u } = solveWith(ctx, factor, w);
     return d.map((v, i) => (active[i] ? kFound[i] * (v - separation(ctx, i, u)) : 0));
   };

@@ -1,6 +1,7 @@
 /** Functional points (analysis.md §5): motion per 1 µm rise of each ground support, and under the first case's seated load. */
 import { GROUND } from "@/lib/layout/model";
 import { scale } from "../vec";
+import { addRowT } from "../sparse/rows";
 import { pointDisplacement } from "./context";
 import { factorStiff, solveWith } from "./solver";
 import type { CaseResult, Ctx, PointMotion } from "./types";
@@ -25,7 +26,7 @@ export function analysePoints(ctx: Ctx, first: CaseResult, kFound: number[] | nu
   for (const j of ground) {
     if (!active[j]) continue;
     const w = new Array<number>(ctx.n).fill(0);
-    for (let q = 0; q < ctx.n; q++) w[q] = c.A.get(j, q) * k[j] * perUm;
+    addRowT(c.rows, j, k[j] * perUm, w);
     const { u } = solveWith(ctx, factor!, w);
     for (const pt of layout.points) points[pt.id].perMicrometre[layout.contacts[j].id] = scale(pointDisplacement(ctx, pt.body, pt.point, u), 1 / perUm);
   }

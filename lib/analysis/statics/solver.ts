@@ -5,32 +5,39 @@
  */
 import { Matrix } from "ml-matrix";
 import { svdRight, rankOf } from "../linalg";
+import { addRowT, rowDot } from "../sparse/rows";
+import { lowSpectrum } from "../sparse/spectrum";
+import { PinvSystem } from "../sparse/pinv";
 import { STATICS } from "../tolerances";
 import type { Ctx, Factor, Solve } from "./types";
 
 const LIFT = STATICS.liftOffRelative;
 
-/** The SVD of K^½ A over the active contacts: factor once, solve for many load vectors. */
+/** K^½ A over the active contacts, factored once (dense SVD, or the structured pseudo-inverse beyond DENSE_MAX_BODIES). */
 export function factorStiff(ctx: Ctx, k: number[], active: boolean[]): Factor {
   const rows = active.map((a, i) => (a ? i : -1)).filter((i) => i >= 0);
+  if (ctx.c.method === "structured") {
+    const w = new Float64Array(ctx.m);
+    for (const i of rows) w[i] = k[i];
+    const spectrum = lowSpectrum(ctx.c.rows, w, ctx.layout.tolerance, ctx.c.counts.freedoms);
+    const sys = new PinvSystem(ctx.c.rows, w, spectrum, ctx.layout.tolerance);
+    return {
+      k,
+      rows,
+      r: spectrum.rank,
+      applyPinv: (rhs) => Array.from(sys.apply(rhs)),
+      project: (v) => Array.from(sys.project(v)),
+      nullAlong: (v) => sys.nullComponent(v),
+    };
+  }
   const B = new Matrix(Math.max(rows.length, 1), ctx.n);
   rows.forEach((i, r) => {
     const sk = Math.sqrt(k[i]);
     for (let j = 0; j < ctx.n; j++) B.set(r, j, sk * ctx.c.A.get(i, j));
   });
   const { s, V } = svdRight(B);
-  return { k, rows, s, V, r: rankOf(s, ctx.layout.tolerance) };
-}
-
-/** u = (AᵀKA)⁺ w over the active contacts, λ = −K A u; `driven` when w has a part along a free motion. */
-export function solveStiff(ctx: Ctx, k: number[], active: boolean[], w: number[]): Solve {
-  return solveWith(ctx, factorStiff(ctx, k, active), w);
-}
-
-export function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
-  const { k, rows, s, V, r } = f;
-  // u = V Σ⁻² Vᵀ w on the kept singular directions, then iterative refinement
-  // (r = P w − BᵀB u) to bring the equilibrium residual down to rounding
+  const r = rankOf(s, ctx.layout.tolerance);
+  // u = V Σ⁻² Vᵀ w on the kept singular directions
   const applyPinv = (rhs: number[]): number[] => {
     const out = new Array<number>(ctx.n).fill(0);
     for (let j = 0; j < r; j++) {
@@ -50,22 +57,32 @@ export function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
     }
     return out;
   };
+  const nullAlong = (w: number[]): number => {
+    let along = 0;
+    for (let j = r; j < ctx.n; j++) {
+      let d = 0;
+      for (let q = 0; q < ctx.n; q++) d += V.get(q, j) * w[q];
+      along = Math.max(along, Math.abs(d));
+    }
+    return along;
+  };
+  return { k, rows, r, applyPinv, project, nullAlong };
+}
+
+/** u = (AᵀKA)⁺ w over the active contacts, λ = −K A u; `driven` when w has a part along a free motion. */
+export function solveStiff(ctx: Ctx, k: number[], active: boolean[], w: number[]): Solve {
+  return solveWith(ctx, factorStiff(ctx, k, active), w);
+}
+
+export function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
+  const { k, rows, applyPinv, project } = f;
   const u = applyPinv(w);
   // part of the load along the null space of the active support
   const wNorm = Math.hypot(...w);
-  let along = 0;
-  for (let j = r; j < ctx.n; j++) {
-    let d = 0;
-    for (let q = 0; q < ctx.n; q++) d += V.get(q, j) * w[q];
-    along = Math.max(along, Math.abs(d));
-  }
+  const along = f.nullAlong(w);
   const lambda = new Array<number>(ctx.m).fill(0);
   const applyKA = (du: number[], sign: number) => {
-    for (const i of rows) {
-      let au = 0;
-      for (let q = 0; q < ctx.n; q++) au += ctx.c.A.get(i, q) * du[q];
-      lambda[i] += sign * k[i] * au;
-    }
+    for (const i of rows) lambda[i] += sign * k[i] * rowDot(ctx.c.rows, i, du);
   };
   applyKA(u, -1);
   // iterative refinement on the forces themselves: res = Aᵀλ + P w, δu = (AᵀKA)⁺ res, λ −= K A δu
@@ -73,7 +90,7 @@ export function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
   const target = project(w);
   for (let step = 0; step < STATICS.refinementSteps; step++) {
     const res = target.slice();
-    for (const i of rows) if (lambda[i] !== 0) for (let q = 0; q < ctx.n; q++) res[q] += ctx.c.A.get(i, q) * lambda[i];
+    for (const i of rows) if (lambda[i] !== 0) addRowT(ctx.c.rows, i, lambda[i], res);
     const du = applyPinv(res);
     for (let q = 0; q < ctx.n; q++) u[q] += du[q];
     applyKA(du, -1);
@@ -83,9 +100,7 @@ export function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
 
 /** Normal separation (A u)_i of one contact. */
 export function separation(ctx: Ctx, i: number, u: number[]): number {
-  let au = 0;
-  for (let q = 0; q < ctx.n; q++) au += ctx.c.A.get(i, q) * u[q];
-  return au;
+  return rowDot(ctx.c.rows, i, u);
 }
 
 /** The active-set loop of analysis.md §3 for one stiffness vector. */

@@ -1,7 +1,6 @@
 /** The shapes of the statics results (analysis.md §3–§5) and the solve context every statics module shares. */
 import type { Layout, Vec3 } from "@/lib/layout/model";
 import type { ConstraintAnalysis } from "../constraint";
-import type { Matrix } from "ml-matrix";
 
 export type StiffnessSource = "file" | "hertz" | "equal" | "none";
 
@@ -85,10 +84,16 @@ export interface Solve {
   driven: boolean;
 }
 
+/** A factored stiffness system over the active rows: dense SVD (small layouts) or the structured pseudo-inverse (§12). */
 export interface Factor {
   k: number[];
   rows: number[];
-  s: number[];
-  V: Matrix;
+  /** rank of K^½ A over the active rows */
   r: number;
+  /** (AᵀKA)⁺ rhs */
+  applyPinv(rhs: number[]): number[];
+  /** rhs without its part along the null space of the active rows */
+  project(v: number[]): number[];
+  /** largest component of w along an orthonormal basis of that null space */
+  nullAlong(w: number[]): number;
 }
