@@ -115,12 +115,6 @@ export function denseMatrix(R: SparseRows): Matrix {
   return A;
 }
 
-/** Builds the dense scaled constraint matrix (analysis.md §1). */
-export function buildMatrix(layout: Layout, bodyIndex: Map<string, number>, centroid: Vec3, L: number): { A: Matrix; normals: Vec3[] } {
-  const { rows, normals } = buildRows(layout, bodyIndex, centroid, L);
-  return { A: denseMatrix(rows), normals };
-}
-
 /** Presents one scaled twist (unit length) as per-body twists about the origin and screws. */
 export function toMotion(scaled: number[], bodyIds: string[], c: Vec3, L: number): Motion {
   const len = Math.hypot(...scaled) || 1;
@@ -191,7 +185,7 @@ export function analyseConstraint(layout: Layout, method: EngineMethod = layout.
             spec,
             minimumDegreeOrder(rows, ones),
             layout.tolerance,
-          ).states
+          )
         : [];
     return withDense(
       {

@@ -98,19 +98,12 @@ export function lastRowBasis(R: SparseRows, sorted: number[], order: Int32Array,
  * Canonical states: pivots are the rows outside the basis, in sorted order; the state of pivot p has
  * λ_p = 1, zero on every other pivot, and λ_C = −A_C (A_Cᵀ A_C)⁺ a_pᵀ on the basis rows.
  */
-export function canonicalStatesSparse(
-  R: SparseRows,
-  contactIds: string[],
-  spectrum: LowSpectrum,
-  order: Int32Array,
-  tolerance: number,
-): { states: SelfStressState[]; basisRows: number } {
+export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spectrum: LowSpectrum, order: Int32Array, tolerance: number): SelfStressState[] {
   const sorted = contactIds.map((id, i) => [id, i] as const).sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
   const idx = sorted.map(([, i]) => i);
   const inBasis = lastRowBasis(R, idx, order, tolerance * spectrum.sigmaMax, spectrum.rank);
-  const basisRows = inBasis.filter(Boolean).length;
   const pivots = idx.filter((i) => !inBasis[i]).slice(0, MAX_SELF_STRESS_LISTED);
-  if (pivots.length === 0) return { states: [], basisRows };
+  if (pivots.length === 0) return [];
   // A_C has the rank of A, so its null space is A's
   const w = inBasis.map((b) => (b ? 1 : 0));
   const sys = new PinvSystem(R, w, spectrum, tolerance);
@@ -137,5 +130,5 @@ export function canonicalStatesSparse(
     for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
     states.push({ pivot: contactIds[p], forces });
   }
-  return { states, basisRows };
+  return states;
 }

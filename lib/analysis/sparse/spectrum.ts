@@ -32,7 +32,7 @@ const dotv = (a: ArrayLike<number>, b: ArrayLike<number>) => {
 const normv = (a: ArrayLike<number>) => Math.sqrt(dotv(a, a));
 
 /** Modified Gram–Schmidt, twice (columns that vanish are dropped). */
-export function orthonormalise(cols: Float64Array[]): Float64Array[] {
+function orthonormalise(cols: Float64Array[]): Float64Array[] {
   const out: Float64Array[] = [];
   for (const c0 of cols) {
     const c = Float64Array.from(c0);
