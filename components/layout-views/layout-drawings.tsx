@@ -46,6 +46,9 @@ interface Props {
   print?: boolean;
   /** earlier positions of moved contacts (revision diff): drawn hollow, joined to the new position */
   ghosts?: { id: string; point: Vec3 }[];
+  /** the body in focus when the page shares its body filter with the drawings (controlled); own state otherwise */
+  focusBody?: string;
+  onFocusBody?: (body: string) => void;
 }
 
 const W = 420;
@@ -68,7 +71,7 @@ export function flexureReadout(file: Layout, rowId: string, row: Layout["contact
   return ` · ${f.kind} ${f.id}${rowId === f.id ? "" : ` (row ${rowId.slice(f.id.length + 1)})`}: ${dims}${f.material ? `, ${f.material}` : ""}${k}`;
 }
 
-export function LayoutDrawings({ layout: file, report, emphasis, print = false, ghosts = [] }: Props) {
+export function LayoutDrawings({ layout: file, report, emphasis, print = false, ghosts = [], focusBody: sharedFocus, onFocusBody }: Props) {
   // flexure elements are drawn as elements and their generated rows as contacts (analysis.md §10)
   const layout = useMemo(() => expandFlexures(file), [file]);
   const [showMotions, setShowMotions] = useState(true);
@@ -77,7 +80,9 @@ export function LayoutDrawings({ layout: file, report, emphasis, print = false, 
   const [showFoundation, setShowFoundation] = useState(false);
   const [active, setActive] = useState<string | null>(null);
   // focus one body: its contacts stand out and every view is fitted to it
-  const [focusBody, setFocusBody] = useState("");
+  const [ownFocus, setOwnFocus] = useState("");
+  const focusBody = onFocusBody ? (sharedFocus ?? "") : ownFocus;
+  const setFocusBody = onFocusBody ?? setOwnFocus;
   const shownEmphasis: Emphasis | undefined = focusBody
     ? { contacts: layout.contacts.filter((c) => c.body === focusBody || c.on === focusBody).map((c) => c.id), motions: emphasis?.motions }
     : emphasis;
@@ -119,7 +124,8 @@ export function LayoutDrawings({ layout: file, report, emphasis, print = false, 
               <input type="checkbox" checked={showFoundation} onChange={(e) => setShowFoundation(e.target.checked)} /> response to 1 µm base warp
             </label>
           )}
-          {layout.bodies.length > 1 && (
+          {/* a page with its own body filter (shared with its tables) sets the focus from there */}
+          {layout.bodies.length > 1 && !onFocusBody && (
             <label className="flex items-center gap-1">
               focus on
               <select className="field w-auto py-0.5 text-xs" value={focusBody} onChange={(e) => setFocusBody(e.target.value)} aria-label="Focus on a body">

@@ -1,7 +1,7 @@
 "use client";
 /** Layout page body: header and state, revisions timeline, summary, upload, findings, diff, release, history. */
 import Link from "next/link";
-import { useRouter } from "next/navigation";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useMemo, useState } from "react";
 import { fetchJson } from "@/components/ui/fetch-json";
@@ -14,6 +14,7 @@ import { FlexurePanel, RepeatabilityPanel, ThermalPanel } from "./service-panels
 import { ConfirmButton } from "@/components/ui/confirm-button";
 import { summariseLoadCases } from "@/lib/report/load-case-summary";
 import { LayoutDrawings } from "@/components/layout-views/layout-drawings";
+import { BodyFilter, bodyScope } from "./body-filter";
 import type { Report } from "@/lib/engine";
 import type { Layout } from "@/lib/layout/model";
 import type { RevisionSummaryDto } from "@/lib/contracts/revisions";
@@ -58,6 +59,16 @@ export function LayoutView({
   const lq = useQuery({ queryKey: ["layout", layoutId], queryFn: () => fetchJson<LayoutData>(`/api/layouts/${layoutId}`) });
   const [selected, setSelected] = useState<number | null>(initialRevision);
   const [compareWith, setCompareWith] = useState<number | null>(null);
+  // the body filter lives in the address (?body=…) so a link shows the same narrowed page
+  const params = useSearchParams();
+  const pathname = usePathname();
+  const body = params.get("body") ?? "";
+  const setBody = (b: string) => {
+    const next = new URLSearchParams(params.toString());
+    if (b) next.set("body", b);
+    else next.delete("body");
+    router.replace(`${pathname}${next.size ? `?${next}` : ""}`, { scroll: false });
+  };
   const revisions = useMemo(() => lq.data?.revisions ?? [], [lq.data]);
   const latest = revisions[revisions.length - 1];
   const current = selected ?? latest?.id ?? null;
@@ -81,6 +92,8 @@ export function LayoutView({
   const isLatest = rev && latest && rev.id === latest.id;
   const L = rev?.report.units.length === "um" ? "µm" : rev?.report.units.length;
   const seatingSummary = rev ? summariseLoadCases(rev.report) : null;
+  const shownBody = rev && rev.layout.bodies.some((b) => b.id === body) ? body : "";
+  const scope = rev ? bodyScope(rev.layout, shownBody) : null;
 
   return (
     <div className="space-y-6">
@@ -236,12 +249,13 @@ export function LayoutView({
           {/* a reviewer's order: summary, findings, drawings, then the detail tables */}
           <FindingsTable findings={rev.findings} />
 
-          <LayoutDrawings layout={rev.layout} report={rev.report} />
+          <BodyFilter layout={rev.layout} value={shownBody} onChange={setBody} />
+          <LayoutDrawings layout={rev.layout} report={rev.report} focusBody={shownBody} onFocusBody={setBody} />
 
-          <LoadCaseTable report={rev.report} />
-          <FlexurePanel layout={rev.layout} />
-          <ThermalPanel layout={rev.layout} report={rev.report} />
-          <RepeatabilityPanel layout={rev.layout} report={rev.report} />
+          <LoadCaseTable report={rev.report} scope={scope!} />
+          <FlexurePanel layout={rev.layout} scope={scope!} />
+          <ThermalPanel layout={rev.layout} report={rev.report} scope={scope!} />
+          <RepeatabilityPanel layout={rev.layout} report={rev.report} scope={scope!} />
 
           <section className="sheet space-y-2 p-4" aria-labelledby="release-heading">
             <h2 id="release-heading" className="text-base">

@@ -12,6 +12,7 @@ import { expandFlexures, flexureLength } from "@/lib/layout/flexures";
 import { metresPer } from "@/lib/layout/units";
 import { num, vec } from "@/lib/analysis/format";
 import { SortableTable, type Column } from "@/components/ui/sortable-table";
+import { FilteredNote, type BodyScope } from "./body-filter";
 
 /** A µm value compared with the point's allowance: marked "over" when it exceeds it. */
 function againstAllowance<R extends { exceeds: boolean }>(key: string, label: string, value: (r: R) => number): Column<R> {
@@ -44,17 +45,19 @@ const lengthLabel = (layout: Layout) => (layout.units.length === "um" ? "µm" : 
 const mag = (v: number[]) => Math.hypot(...v);
 
 /** Each flexure element with its dimensions and the stiffness of its rows. */
-export function FlexurePanel({ layout }: { layout: Layout }) {
-  const flexures = layout.flexures ?? [];
-  if (!flexures.length) return null;
+export function FlexurePanel({ layout, scope }: { layout: Layout; scope: BodyScope }) {
+  const all = layout.flexures ?? [];
+  if (!all.length) return null;
+  const flexures = all.filter((f) => scope.flexure(f.id));
   const L = lengthLabel(layout);
   const F = layout.units.force;
   const rows = expandFlexures(layout).contacts.filter((c) => c.flexure);
   return (
     <section className="sheet overflow-x-auto p-4" aria-labelledby="flexures-heading" data-testid="flexure-panel">
       <h2 id="flexures-heading" className="mb-2 text-base">
-        Flexures ({flexures.length})
+        Flexures ({all.length})
       </h2>
+      <FilteredNote scope={scope} shown={flexures.length} total={all.length} what="flexures" />
       <SortableTable
         rows={flexures}
         rowKey={(f) => f.id}
@@ -98,29 +101,30 @@ export function FlexurePanel({ layout }: { layout: Layout }) {
 }
 
 /** Thermal centres, drift per kelvin and over the swing, and thermal forces where they have a magnitude. */
-export function ThermalPanel({ layout, report }: { layout: Layout; report: Report }) {
+export function ThermalPanel({ layout, report, scope }: { layout: Layout; report: Report; scope: BodyScope }) {
   const t = report.thermal;
   if (!t) return null;
   const L = lengthLabel(layout);
   const F = layout.units.force;
   const swing = t.swingK ?? 1;
   const toUm = metresPer(layout.units.length) * 1e6;
-  const drifts = Object.entries(t.points).map(([id, p]) => {
-    const allowance = layout.points.find((x) => x.id === id)?.allowance;
-    return {
-      id,
-      d: p.driftUmPerK,
-      perK: mag(p.driftUmPerK),
-      over: mag(p.driftUmPerK) * swing,
-      allowance,
-      exceeds: allowance !== undefined && mag(p.driftUmPerK) * swing > allowance * toUm,
-    };
-  });
-  const forces = t.forcesPerK
-    ? Object.entries(t.forcesPerK)
-        .filter(([, v]) => v !== 0)
-        .map(([id, v]) => ({ id, v }))
-    : [];
+  const allDrifts = Object.entries(t.points);
+  const drifts = allDrifts
+    .filter(([id]) => scope.point(id))
+    .map(([id, p]) => {
+      const allowance = layout.points.find((x) => x.id === id)?.allowance;
+      return {
+        id,
+        d: p.driftUmPerK,
+        perK: mag(p.driftUmPerK),
+        over: mag(p.driftUmPerK) * swing,
+        allowance,
+        exceeds: allowance !== undefined && mag(p.driftUmPerK) * swing > allowance * toUm,
+      };
+    });
+  const allForces = t.forcesPerK ? Object.entries(t.forcesPerK).filter(([, v]) => v !== 0) : [];
+  const forces = allForces.filter(([id]) => scope.contact(id)).map(([id, v]) => ({ id, v }));
+  const bodies = Object.entries(t.bodies).filter(([id]) => scope.bodyRow(id));
   return (
     <section className="sheet space-y-3 overflow-x-auto p-4" aria-labelledby="thermal-heading" data-testid="thermal-panel">
       <h2 id="thermal-heading" className="text-base">
@@ -139,7 +143,7 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
           </tr>
         </thead>
         <tbody>
-          {Object.entries(t.bodies).map(([id, b]) => (
+          {bodies.map(([id, b]) => (
             <tr key={id}>
               <td>{id}</td>
               <td className="num">{b.centre ? vec(b.centre) : "none — same expansion as the base"}</td>
@@ -147,6 +151,7 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
           ))}
         </tbody>
       </table>
+      {allDrifts.length > 0 && <FilteredNote scope={scope} shown={drifts.length} total={allDrifts.length} what="functional points" />}
       {drifts.length > 0 && (
         <SortableTable
           testId="thermal-drift-table"
@@ -165,18 +170,21 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
         <p className="text-xs">
           The support is over-constrained in service, but no stiffness magnitude is known (equal stiffness assumed): thermal forces are not computed.
         </p>
-      ) : forces.length ? (
-        <SortableTable
-          testId="thermal-force-table"
-          rows={forces}
-          rowKey={(r) => r.id}
-          initial={{ key: "abs", desc: true }}
-          columns={[
-            { key: "id", label: "row", sort: (r) => r.id, render: (r) => r.id },
-            { key: "abs", label: `force change per K (${F})`, numeric: true, sort: (r) => Math.abs(r.v), render: (r) => num(r.v) },
-            { key: "swing", label: `over ${num(swing)} K (${F})`, numeric: true, sort: (r) => Math.abs(r.v), render: (r) => num(r.v * swing) },
-          ]}
-        />
+      ) : allForces.length ? (
+        <>
+          <FilteredNote scope={scope} shown={forces.length} total={allForces.length} what="rows with a thermal force" />
+          <SortableTable
+            testId="thermal-force-table"
+            rows={forces}
+            rowKey={(r) => r.id}
+            initial={{ key: "abs", desc: true }}
+            columns={[
+              { key: "id", label: "row", sort: (r) => r.id, render: (r) => r.id },
+              { key: "abs", label: `force change per K (${F})`, numeric: true, sort: (r) => Math.abs(r.v), render: (r) => num(r.v) },
+              { key: "swing", label: `over ${num(swing)} K (${F})`, numeric: true, sort: (r) => Math.abs(r.v), render: (r) => num(r.v * swing) },
+            ]}
+          />
+        </>
       ) : (
         <p className="text-xs">No contact force changes with temperature: the mount follows the mismatch as a rigid body.</p>
       )}
@@ -185,13 +193,17 @@ export function ThermalPanel({ layout, report }: { layout: Layout; report: Repor
 }
 
 /** The error budget: per point σ per axis and 3σ, and each contact's share of the variance. */
-export function RepeatabilityPanel({ layout, report }: { layout: Layout; report: Report }) {
+export function RepeatabilityPanel({ layout, report, scope }: { layout: Layout; report: Report; scope: BodyScope }) {
   const rep = report.repeatability;
-  const ids = Object.keys(rep?.points ?? {});
-  const [pointId, setPointId] = useState(ids[0] ?? "");
+  const allIds = Object.keys(rep?.points ?? {});
+  const scoped = allIds.filter(scope.point);
+  // a body without functional points keeps the whole budget rather than an empty panel
+  const ids = scoped.length ? scoped : allIds;
+  const [chosen, setPointId] = useState(ids[0] ?? "");
   if (!rep || !ids.length) return null;
   const toUm = metresPer(layout.units.length) * 1e6;
-  const p = rep.points[pointId] ?? rep.points[ids[0]];
+  const pointId = ids.includes(chosen) ? chosen : ids[0];
+  const p = rep.points[pointId];
   const shares = Object.entries(p.contributions)
     .map(([id, share]) => ({ id, pct: share * 100 }))
     .sort((a, b) => b.pct - a.pct);
@@ -209,6 +221,13 @@ export function RepeatabilityPanel({ layout, report }: { layout: Layout; report:
         From each seat&apos;s scatter along its normal (1σ) to the scatter of each functional point.
         {rep.undetermined ? " A free motion remains: scatter along it is not determined." : ""}
       </p>
+      {scope.body && !scoped.length ? (
+        <p className="text-xs text-graphite-soft" data-testid="filtered-note">
+          No functional point on {scope.body}: the budget of every point is shown.
+        </p>
+      ) : (
+        <FilteredNote scope={scope} shown={ids.length} total={allIds.length} what="functional points" />
+      )}
       <SortableTable
         testId="repeatability-table"
         rows={summary}

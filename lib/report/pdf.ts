@@ -1,12 +1,11 @@
 /**
  * The release report as PDF, written with pdf-lib (pure JavaScript; no browser). The markdown report is
- * laid out as text (headings, paragraphs, table rows) with the plan view of the contacts drawn on the
- * first page. The standard PDF fonts cover WinAnsi only, so other characters are spelled out.
+ * laid out as text (headings, paragraphs, table rows); the four drawing views of the layout page, rendered
+ * from the same SVG by resvg in a worker thread (lib/report/drawing-images.tsx), are placed before the
+ * findings with the drawing legend. The standard PDF fonts cover WinAnsi only, so other characters are spelled out.
  */
-import { PDFDocument, StandardFonts, degrees, rgb, type PDFFont, type PDFPage } from "pdf-lib";
-import type { Layout } from "@/lib/layout/model";
-import type { Report } from "@/lib/engine";
-import { expandFlexures } from "@/lib/layout/flexures";
+import { PDFDocument, StandardFonts, degrees, rgb, type PDFFont, type PDFImage, type PDFPage } from "pdf-lib";
+import type { DrawingSheet } from "@/lib/report/drawing-images";
 
 const replacements: [RegExp, string][] = [
   [/σ/g, "sigma"],
@@ -23,6 +22,7 @@ const replacements: [RegExp, string][] = [
   [/✓/g, "v"],
   [/…/g, "..."],
   [/×/g, "x"],
+  [/∝/g, "proportional to"],
   [/·/g, "."],
   [/‘|’/g, "'"],
   [/“|”/g, '"'],
@@ -61,59 +61,61 @@ function wrap(text: string, font: PDFFont, size: number, width: number): string[
   return lines;
 }
 
-/** Builds the PDF bytes of a report from its markdown and (optionally) the layout for the plan drawing. */
-export async function reportPdf(markdown: string, drawing?: { layout: Layout; report: Report }): Promise<Uint8Array> {
+const [PAGE_W, PAGE_H] = [595.28, 841.89];
+const MARGIN = 50;
+const INK = rgb(0.17, 0.18, 0.19);
+
+/** The writing position: the current page and the height left on it; new pages as text runs over. */
+class Cursor {
+  page: PDFPage;
+  y = PAGE_H - MARGIN;
+  constructor(private doc: PDFDocument) {
+    this.page = doc.addPage([PAGE_W, PAGE_H]);
+  }
+  /** starts a new page unless `h` points fit above the bottom margin */
+  ensure(h: number) {
+    if (this.y - h < MARGIN) {
+      this.page = this.doc.addPage([PAGE_W, PAGE_H]);
+      this.y = PAGE_H - MARGIN;
+    }
+  }
+  write(text: string, font: PDFFont, size: number, indent = 0, gap = 2) {
+    for (const l of wrap(winAnsi(text), font, size, PAGE_W - 2 * MARGIN - indent)) {
+      this.ensure(size + gap);
+      this.page.drawText(l, { x: MARGIN + indent, y: this.y - size, size, font, color: INK });
+      this.y -= size + gap;
+    }
+  }
+}
+
+/** Builds the PDF bytes of a report from its markdown and (optionally) the drawing views of its layout. */
+export async function reportPdf(markdown: string, drawings?: DrawingSheet): Promise<Uint8Array> {
   const doc = await PDFDocument.create();
   doc.setTitle(winAnsi(markdown.split("\n")[0].replace(/^#\s*/, "")));
   doc.setProducer("Sixfold");
   const regular = await doc.embedFont(StandardFonts.Helvetica);
   const bold = await doc.embedFont(StandardFonts.HelveticaBold);
   const mono = await doc.embedFont(StandardFonts.Courier);
-  const [W, H] = [595.28, 841.89];
-  const margin = 50;
-  let page: PDFPage = doc.addPage([W, H]);
-  let y = H - margin;
-  const ensure = (h: number) => {
-    if (y - h < margin) {
-      page = doc.addPage([W, H]);
-      y = H - margin;
-    }
-  };
-  const write = (text: string, font: PDFFont, size: number, indent = 0, gap = 2) => {
-    for (const l of wrap(winAnsi(text), font, size, W - 2 * margin - indent)) {
-      ensure(size + gap);
-      page.drawText(l, { x: margin + indent, y: y - size, size, font, color: rgb(0.17, 0.18, 0.19) });
-      y -= size + gap;
-    }
-  };
+  const images = drawings ? await Promise.all(drawings.views.map((v) => doc.embedPng(v.png))) : [];
+  const at = new Cursor(doc);
   let drew = false;
   for (const raw of markdown.split("\n")) {
     const line = raw.replace(/\*\*/g, "").replace(/`/g, "");
-    if (/^# /.test(line)) write(line.slice(2), bold, 16, 0, 6);
+    if (/^# /.test(line)) at.write(line.slice(2), bold, 16, 0, 6);
     else if (/^## /.test(line)) {
-      if (!drew && drawing && /^## Findings/.test(line)) {
+      // the drawings go before the findings (or at the end of a report without them)
+      if (!drew && drawings && /^## Findings/.test(line)) {
         drew = true;
-        drawPlan(
-          page,
-          drawing,
-          margin,
-          y,
-          regular,
-          (h) => {
-            ensure(h);
-            return y;
-          },
-          (dy) => (y -= dy),
-        );
+        drawViews(drawings, images, { regular, bold }, at);
       }
-      y -= 6;
-      write(line.slice(3), bold, 12.5, 0, 4);
+      at.y -= 6;
+      at.write(line.slice(3), bold, 12.5, 0, 4);
     } else if (/^### /.test(line)) {
-      y -= 3;
-      write(line.slice(4), bold, 10.5, 0, 3);
+      at.y -= 3;
+      at.write(line.slice(4), bold, 10.5, 0, 3);
     } else if (/^\|/.test(line)) {
       if (/^\|[-| ]+\|$/.test(line)) continue;
-      write(
+      at.write(
         line
           .split("|")
           .slice(1, -1)
@@ -124,11 +126,12 @@ export async function reportPdf(markdown: string, drawing?: { layout: Layout; re
         8,
         2,
       );
-    } else if (/^> /.test(line)) write(line.slice(2), regular, 8.5, 8, 2);
-    else if (/^- /.test(line)) write(`- ${line.slice(2)}`, regular, 9.5, 6, 2);
-    else if (line.trim() === "") y -= 4;
-    else write(line, regular, 9.5, 0, 2);
+    } else if (/^> /.test(line)) at.write(line.slice(2), regular, 8.5, 8, 2);
+    else if (/^- /.test(line)) at.write(`- ${line.slice(2)}`, regular, 9.5, 6, 2);
+    else if (line.trim() === "") at.y -= 4;
+    else at.write(line, regular, 9.5, 0, 2);
   }
+  if (!drew && drawings) drawViews(drawings, images, { regular, bold }, at);
   // a report of a revision that was not approved carries a watermark on every page
   if (/^# DRAFT/.test(markdown)) {
     for (const p of doc.getPages()) {
@@ -138,38 +141,26 @@ export async function reportPdf(markdown: string, drawing?: { layout: Layout; re
   return doc.save();
 }
 
-function drawPlan(
-  page: PDFPage,
-  { layout }: { layout: Layout; report: Report },
-  margin: number,
-  _y: number,
-  font: PDFFont,
-  ensure: (h: number) => number,
-  advance: (dy: number) => void,
-) {
-  const h = 220;
-  const top = ensure(h + 20);
-  const w = 595.28 - 2 * margin;
-  const pts = expandFlexures(layout).contacts.map((c) => [c.point[0], c.point[1]] as const);
-  if (!pts.length) return;
-  const xs = pts.map((p) => p[0]);
-  const ys = pts.map((p) => p[1]);
-  const span = Math.max(Math.max(...xs) - Math.min(...xs), Math.max(...ys) - Math.min(...ys), 1e-9);
-  const s = Math.min((w - 40) / Math.max(Math.max(...xs) - Math.min(...xs), span * 0.05), (h - 40) / Math.max(Math.max(...ys) - Math.min(...ys), span * 0.05));
-  const cx = (Math.max(...xs) + Math.min(...xs)) / 2;
-  const cy = (Math.max(...ys) + Math.min(...ys)) / 2;
-  const X = (x: number) => margin + w / 2 + (x - cx) * s;
-  const Y = (yy: number) => top - h / 2 + (yy - cy) * s;
-  page.drawRectangle({ x: margin, y: top - h, width: w, height: h, borderColor: rgb(0.6, 0.6, 0.6), borderWidth: 0.5 });
-  page.drawText("Plan view (looking down -z; x right, y up)", { x: margin + 4, y: top - 10, size: 7.5, font });
-  const arrow = span * 0.08 * s;
-  for (const c of expandFlexures(layout).contacts) {
-    const x = X(c.point[0]);
-    const yy = Y(c.point[1]);
-    const n = c.normal.map((v) => v / Math.hypot(...c.normal));
-    page.drawCircle({ x, y: yy, size: 2.2, borderColor: rgb(0.1, 0.1, 0.1), borderWidth: 0.8 });
-    if (Math.hypot(n[0], n[1]) > 0.05) page.drawLine({ start: { x, y: yy }, end: { x: x + n[0] * arrow, y: yy + n[1] * arrow }, thickness: 0.7 });
-    page.drawText(winAnsi(c.id), { x: x + 3, y: yy + 3, size: 6, font });
+/** The four drawing views in a 2 × 2 grid, each captioned as on screen and framed, then the legend as text. */
+function drawViews(sheet: DrawingSheet, images: PDFImage[], fonts: { regular: PDFFont; bold: PDFFont }, at: Cursor) {
+  const gap = 12;
+  const cellW = (PAGE_W - 2 * MARGIN - gap) / 2;
+  at.y -= 6;
+  at.ensure(40 + (cellW * 300) / 420);
+  at.write("Drawing views", fonts.bold, 12.5, 0, 4);
+  for (let i = 0; i < sheet.views.length; i += 2) {
+    const row = sheet.views.slice(i, i + 2);
+    const cellH = Math.max(...row.map((v) => (cellW * v.height) / v.width));
+    at.ensure(cellH + 14);
+    row.forEach((v, k) => {
+      const x = MARGIN + k * (cellW + gap);
+      const h = (cellW * v.height) / v.width;
+      at.page.drawText(winAnsi(v.title), { x, y: at.y - 8, size: 7.5, font: fonts.bold, color: INK });
+      at.page.drawImage(images[i + k], { x, y: at.y - 12 - h, width: cellW, height: h });
+      at.page.drawRectangle({ x, y: at.y - 12 - h, width: cellW, height: h, borderColor: rgb(0.85, 0.83, 0.78), borderWidth: 0.5 });
+    });
+    at.y -= cellH + 18;
   }
-  advance(h + 14);
+  for (const l of sheet.legend) at.write(`- ${l}`, fonts.regular, 8, 6, 1.5);
+  at.y -= 6;
 }

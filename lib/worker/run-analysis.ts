@@ -13,6 +13,7 @@ import type { Encoding, Layout, LayoutError, Material } from "@/lib/layout/model
 import type { ForceUnit, LengthUnit } from "@/lib/layout/units";
 import type { Report } from "@/lib/engine";
 import type { RuleOverride } from "@/rules";
+import type { DrawingSheet } from "@/lib/report/drawing-images";
 
 export type AnalysisOutcome =
   { ok: true; layout: Layout; report: Report; encoding: Encoding; text: string; warnings: string[] } | { ok: false; errors: LayoutError[] };
@@ -42,11 +43,34 @@ export function analysisPoolStats(): { threadIds: number[]; completed: number } 
   return { threadIds: pool ? pool.threads.map((t) => t.threadId) : [], completed: pool ? pool.completed : 0 };
 }
 
-/** Stops the analysis threads (tests and shutdown); the next analysis starts a new pool. */
+/** Stops the analysis and drawing threads (tests and shutdown); the next analysis or drawing starts a new pool. */
 export async function closeAnalysisPool(): Promise<void> {
-  const p = pool;
+  const [p, d] = [pool, drawPool];
   pool = null;
+  drawPool = null;
   if (p) await p.destroy();
+  if (d) await d.destroy();
+}
+
+let drawPool: Piscina | null = null;
+
+/**
+ * The four drawing views of a revision rendered to PNG for its PDF report, in a pooled thread (one; a report
+ * download is rare next to an upload). Throws a 503 when the drawing bundle is missing or the time runs out.
+ */
+export async function drawingsInWorker(layout: Layout, report: Report, timeoutMs = 60_000): Promise<DrawingSheet> {
+  const file = path.join(process.cwd(), "dist", "drawing-worker.cjs");
+  if (!existsSync(file)) throw new AppError(503, "The drawing worker is not built. Run `node scripts/build-worker.mjs`.");
+  drawPool ??= new Piscina({ filename: file, name: "default", minThreads: 0, maxThreads: 1, idleTimeout: 60_000 });
+  try {
+    return await drawPool.run({ layout, report }, { signal: AbortSignal.timeout(timeoutMs) });
+  } catch (err) {
+    const e = err as Error;
+    if (e?.name === "AbortError")
+      throw new AppError(503, `The drawings of this report did not finish within ${Math.round(timeoutMs / 1000)} s. Try again later.`);
+    console.error("[drawings] worker failed", e);
+    throw new AppError(500, "The drawings of this report could not be rendered.");
+  }
 }
 
 /**

@@ -1,4 +1,6 @@
 /** Drawing views: four views on the layout page; a finding's page emphasises its contacts; a screenshot is kept. */
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { expect, test } from "@playwright/test";
 import { signInAs } from "./helpers";
 
@@ -123,4 +125,51 @@ test("labels do not overlap on the breadboard, and a finding's views are fitted 
   await expect(page.locator('[data-emphasised="true"]').first()).toBeAttached();
   const focused = parseFloat((await page.locator('svg[data-view="plan"] [data-testid="scale-bar"]').textContent()) ?? "");
   expect(focused, `scale bar ${focused} on the finding against ${whole} for the whole plate`).toBeLessThan(whole);
+});
+
+test("one body filter narrows the drawings and the detail tables, and lives in the address", async ({ page }) => {
+  // the breadboard on its three seats carrying a mirror mount on a 3-2-1 set of pads (two bodies; demo data)
+  const board = JSON.parse(readFileSync(path.join("examples", "breadboard-three-seats.json"), "utf8"));
+  const pad = (id: string, point: number[], normal: number[]) => ({ id, body: "mirror-mount", on: "breadboard", point, normal, sense: "bilateral" });
+  board.name = "Larkspur breadboard with a mirror mount";
+  // every seat lands within 0.5 µm (1σ) so the error budget is computed
+  board.defaultScatter = 0.0005;
+  board.bodies.push({ id: "mirror-mount", mass: 1.2, centerOfMass: [300, 225, 80] });
+  board.contacts.push(
+    pad("M1", [280, 205, 60], [0, 0, 1]),
+    pad("M2", [320, 205, 60], [0, 0, 1]),
+    pad("M3", [300, 245, 60], [0, 0, 1]),
+    pad("M4", [280, 205, 70], [0, 1, 0]),
+    pad("M5", [320, 205, 70], [0, 1, 0]),
+    pad("M6", [280, 225, 70], [1, 0, 0]),
+  );
+  await signInAs(page, "designer");
+  await page.goto("/projects");
+  await page.getByRole("link", { name: "Interferometer breadboard" }).click();
+  const name = `Bench with mount ${Date.now()}`;
+  await page.getByLabel("Layout name").fill(name);
+  await page.getByRole("button", { name: "Add layout" }).click();
+  await page.getByRole("link", { name }).click();
+  await page
+    .locator('input[aria-label="Layout file"]')
+    .setInputFiles({ name: "bench.json", mimeType: "application/json", buffer: Buffer.from(JSON.stringify(board)) });
+  await expect(page.getByTestId("upload-status")).toContainText("Revision 1 stored");
+  const rows = page.getByTestId("load-case-table").locator("tbody tr");
+  await page.getByTestId("load-case-details").locator("summary").click();
+  await expect(rows).toHaveCount(12);
+  await page.getByLabel("Show body").selectOption("mirror-mount");
+  await expect(page).toHaveURL(/[?&]body=mirror-mount/);
+  // the seat-force table lists only the mount's six pads; the drawings emphasise them in every view
+  await expect(rows).toHaveCount(6);
+  await expect(page.getByTestId("load-case-details").getByTestId("filtered-note")).toContainText("6 of 12 contacts touch mirror-mount");
+  await expect(page.locator('svg[data-view] [data-emphasised="true"]')).toHaveCount(24);
+  // the breadboard's functional point is not on the mount: the budget says so and keeps every point
+  await expect(page.getByTestId("repeatability-panel").getByTestId("filtered-note")).toContainText("No functional point on mirror-mount");
+  // the address alone restores the filter
+  await page.reload();
+  await expect(page.getByLabel("Show body")).toHaveValue("mirror-mount");
+  await expect(rows).toHaveCount(6);
+  await page.getByLabel("Show body").selectOption("");
+  await expect(page).not.toHaveURL(/body=/);
+  await expect(page.locator('svg[data-view] [data-emphasised="true"]')).toHaveCount(0);
 });

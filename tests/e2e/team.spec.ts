@@ -100,6 +100,10 @@ test("the PDF report of a released revision downloads with its pages and finding
   expect(text).toMatch(/Waived by Chen Okafor/);
   expect(text).toMatch(/Approved by Chen Okafor/);
   expect(text).toMatch(/licensed engineering practice/);
+  // the four drawing views of the screen, captioned as there, with the drawing legend
+  expect(text).toMatch(/Drawing views/);
+  for (const v of ["Plan", "Front", "Side", "Axonometric"]) expect(text).toContain(`${v} . `);
+  expect(text).toMatch(/body outline: the convex hull/);
 });
 
 test("the manager's dashboard shows open findings by project and severity, the trend and the blocked layout", async ({ page }) => {

@@ -5,6 +5,7 @@ import { handle, idFrom, parseWith } from "@/lib/api/handler";
 import { getRevision } from "@/lib/db/revisions";
 import { currentReportMarkdown } from "@/lib/report/release";
 import { reportPdf } from "@/lib/report/pdf";
+import { drawingsInWorker } from "@/lib/worker/run-analysis";
 
 export const dynamic = "force-dynamic";
 const querySchema = z.object({ format: z.enum(["md", "pdf"]).default("md") });
@@ -22,7 +23,7 @@ export const GET = handle(async (req: Request, ctx: { params: Promise<{ revision
       headers: { "content-type": "text/markdown; charset=utf-8", "content-disposition": `attachment; filename="${base}.md"` },
     });
   }
-  const pdf = await reportPdf(md, { layout: rev.layout, report: rev.report });
+  const pdf = await reportPdf(md, await drawingsInWorker(rev.layout, rev.report));
   return new Response(Buffer.from(pdf), {
     status: 200,
     headers: { "content-type": "application/pdf", "content-disposition": `attachment; filename="${base}.pdf"` },
