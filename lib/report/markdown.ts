@@ -10,8 +10,9 @@ import { summariseLoadCases } from "./load-case-summary";
  * Builds the markdown report of one revision (used at release and for download). `approval` is given
  * only by the approval itself, for the record it stores in the same transaction; otherwise the approval
  * line comes from the stored release record alone, and a revision without one prints as a draft.
+ * `link` makes an app path absolute (the report leaves the app as a file).
  */
-export function renderReleaseReport(data: ReleaseReportData, approval?: { by: string; at: Date }): string {
+export function renderReleaseReport(data: ReleaseReportData, approval?: { by: string; at: Date }, link: (path: string) => string = (p) => p): string {
   const rev = data.revision;
   const layout = { name: data.layoutName, project: data.projectName };
   const threads = data.threads;
@@ -29,7 +30,10 @@ export function renderReleaseReport(data: ReleaseReportData, approval?: { by: st
   const approved = record !== null;
   lines.push(approved ? `# Release report — ${layout.name}, revision ${rev.number}` : `# DRAFT, not approved — ${layout.name}, revision ${rev.number}`, "");
   if (!approved) lines.push("> **Draft.** This revision has not been released: this document is not a release record and carries no approval.", "");
-  lines.push(`Drawing views: /layouts/${rev.layoutId}/print?revision=${rev.id} (plan, front, side and axonometric).`, "");
+  lines.push(
+    `Drawing views (plan, front, side and axonometric): in the PDF of this report, and on screen at ${link(`/layouts/${rev.layoutId}/print?revision=${rev.id}`)}.`,
+    "",
+  );
   lines.push(
     `Project: ${layout.project}  `,
     `File: ${rev.fileName} (${rev.encoding.toUpperCase()}), uploaded by ${rev.uploadedBy} on ${rev.createdAt.slice(0, 10)}  `,
