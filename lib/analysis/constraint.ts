@@ -285,7 +285,16 @@ function readableMotions(Nb: Matrix, N: number): number[][] {
     const R = Nb.mmul(Zr);
     const Rw = R.selection(omegaRows, [...Array(R.columns).keys()]);
     // orthonormal basis of the ω column space (left singular vectors of Rw), aligned with coordinate axes
-    const Qn = columns(svdRight(Rw.transpose()).V, 0, Rw.columns);
+    // U = Rw V Σ⁻¹ from the SVD of Rw itself (3N × k, k small): the SVD of its transpose would pad to 3N × 3N
+    const rsvd = svdRight(Rw);
+    const Qn = Rw.mmul(columns(rsvd.V, 0, Rw.columns));
+    for (let c = 0; c < Qn.columns; c++) {
+      const sc = rsvd.s[c];
+      Qn.setColumn(
+        c,
+        Qn.getColumn(c).map((v) => v / sc),
+      );
+    }
     const targets = alignBasis(Qn, [...omegaRows.keys()]);
     const pinv = pseudoInverse(Rw);
     const rotations: number[][] = [];

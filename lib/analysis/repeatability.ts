@@ -32,18 +32,23 @@ export function analyseRepeatability(layout: Layout, c: ConstraintAnalysis, map:
   if (!layout.points.length || !s.some((v) => v > 0)) return null;
   const m = layout.contacts.length;
   const rows = [...Array(m).keys()].filter((i) => map.kept[i] && s[i] > 0);
-  // one twist per scattering row: t_j = G e_j s_j
-  const twists = rows.map((i) => {
-    const g = new Array<number>(m).fill(0);
-    g[i] = s[i];
-    return map.solve(g);
-  });
+  const n = 6 * layout.bodies.length;
   const toUm = metresPer(layout.units.length) * 1e6;
   const bodyIndex = new Map(layout.bodies.map((b, i) => [b.id, i]));
   const points: Record<string, PointRepeatability> = {};
   for (const p of layout.points) {
     const b = bodyIndex.get(p.body)!;
-    const d = twists.map((t) => pointMotion(t, b, p.point, c.centroid, c.length));
+    // the point's motion P t_j for the twist t_j = G a_j k_j s_j of each scattering row j, by the adjoint:
+    // G is symmetric, so (P t_j)_r = k_j s_j a_j·(G p_r) with p_r the r-th row of P; three solves a point
+    // instead of one a row (a whole instrument has thousands of rows and a handful of points)
+    const unit = (q: number) => Array.from({ length: n }, (_, j) => (j === q ? 1 : 0));
+    const P = [0, 1, 2].map(() => new Array<number>(n).fill(0));
+    for (let q = 6 * b; q < 6 * b + 6; q++) {
+      const col = pointMotion(unit(q), b, p.point, c.centroid, c.length);
+      for (let r = 0; r < 3; r++) P[r][q] = col[r];
+    }
+    const AY = P.map((pr) => map.apply(map.pinv(pr)));
+    const d = rows.map((i) => [0, 1, 2].map((r) => map.k[i] * s[i] * AY[r][i]) as Vec3);
     const C = new Matrix(3, 3);
     for (const x of d) for (let r = 0; r < 3; r++) for (let q = 0; q < 3; q++) C.set(r, q, C.get(r, q) + x[r] * x[q]);
     const trace = C.get(0, 0) + C.get(1, 1) + C.get(2, 2);

@@ -3,9 +3,13 @@
  * temperature (analysis.md §9) and repeatability (§11) analyses: kept rows = every row but the seats the
  * first load case releases (and Hertz rows at zero force); K = their stiffness; and
  * t_s = (A_sᵀ K A_s)⁺ A_sᵀ K g for row offsets g along the normals, in scaled twist coordinates.
- * Written here because no package offers a weighted pseudo-inverse on a chosen row subset.
+ * Written here because no package offers a weighted pseudo-inverse on a chosen row subset. Beyond
+ * DENSE_MAX_BODIES the map is the structured pseudo-inverse (sparse/pinv.ts) on the sparse rows, with no dense matrix.
  */
 import { Matrix } from "ml-matrix";
+import { mulA, mulAT } from "./sparse/rows";
+import { lowSpectrum } from "./sparse/spectrum";
+import { PinvSystem } from "./sparse/pinv";
 import type { ConstraintAnalysis } from "./constraint";
 import type { StaticsResult, StiffnessSource } from "./statics";
 import { rankOf, svdRight } from "./linalg";
@@ -27,6 +31,8 @@ export interface RowMap {
   undetermined: boolean;
   /** t_s = G g: scaled twist from offsets along the row normals (file length units) */
   solve(g: number[]): number[];
+  /** (A_sᵀ K A_s)⁺ w for a twist-space vector w (symmetric, so also the adjoint of a twist functional) */
+  pinv(w: number[]): number[];
   /** A_s t_s per row (the relative normal motion a scaled twist produces) */
   apply(ts: number[]): number[];
 }
@@ -49,6 +55,7 @@ export function buildRowMap(c: ConstraintAnalysis, statics: StaticsResult, toler
   const kept = active.map((a, i) => a && stiff[i] > 0);
   const k = stiff.map((v, i) => (kept[i] ? v : 0));
   const rows = kept.map((a, i) => (a ? i : -1)).filter((i) => i >= 0);
+  if (c.method === "structured") return structuredRowMap(c, kept, k, rows.length, source, tolerance);
   const B = new Matrix(Math.max(rows.length, 1), Math.max(n, 1));
   rows.forEach((i, r) => {
     const sk = Math.sqrt(k[i]);
@@ -76,13 +83,8 @@ export function buildRowMap(c: ConstraintAnalysis, statics: StaticsResult, toler
     }
     return out;
   };
-  const solve = (g: number[]): number[] => {
-    // w = A_sᵀ K g, then t_s = V_r Σ_r⁻² V_rᵀ w
-    const w = new Array<number>(n).fill(0);
-    for (const i of rows) {
-      const kg = k[i] * g[i];
-      if (kg !== 0) for (let j = 0; j < n; j++) w[j] += c.A.get(i, j) * kg;
-    }
+  const pinv = (w: number[]): number[] => {
+    // V_r Σ_r⁻² V_rᵀ w
     const out = new Array<number>(n).fill(0);
     for (let col = 0; col < rank; col++) {
       let d = 0;
@@ -92,7 +94,54 @@ export function buildRowMap(c: ConstraintAnalysis, statics: StaticsResult, toler
     }
     return out;
   };
-  return { kept, k, source, rank, redundancies: rows.length - rank, undetermined: rank < n, solve, apply };
+  const solve = (g: number[]): number[] => {
+    // w = A_sᵀ K g, then t_s = V_r Σ_r⁻² V_rᵀ w
+    const w = new Array<number>(n).fill(0);
+    for (const i of rows) {
+      const kg = k[i] * g[i];
+      if (kg !== 0) for (let j = 0; j < n; j++) w[j] += c.A.get(i, j) * kg;
+    }
+    return pinv(w);
+  };
+  return { kept, k, source, rank, redundancies: rows.length - rank, undetermined: rank < n, solve, pinv, apply };
+}
+
+/** The same map without a dense matrix: ranks from the structured low spectrum, solves by the structured pseudo-inverse. */
+function structuredRowMap(c: ConstraintAnalysis, kept: boolean[], k: number[], keptCount: number, source: RowMap["source"], tolerance: number): RowMap {
+  const m = c.counts.contacts;
+  const n = 6 * c.counts.bodies;
+  const w = Float64Array.from(k);
+  const weighted = lowSpectrum(c.rows, w, tolerance, c.counts.freedoms);
+  // as on the dense path: every row kept → the whole matrix's rank (§2); a subset under file or Hertz
+  // stiffness → the rank of the kept rows themselves (weights 1), never above the weighted one
+  let rank = weighted.rank;
+  if (keptCount === m && m > 0) rank = Math.min(c.counts.rank, weighted.rank);
+  else if (source !== "equal" && keptCount > 0)
+    rank = Math.min(
+      lowSpectrum(
+        c.rows,
+        Float64Array.from(kept, (a) => (a ? 1 : 0)),
+        tolerance,
+        c.counts.freedoms,
+      ).rank,
+      rank,
+    );
+  const sys = keptCount > 0 && n > 0 ? new PinvSystem(c.rows, w, weighted, tolerance) : null;
+  const apply = (ts: number[]): number[] => {
+    const y = mulA(c.rows, ts);
+    return Array.from(y, (v, i) => (kept[i] ? v : 0));
+  };
+  const pinv = (w: number[]): number[] => (sys ? Array.from(sys.apply(w)) : new Array<number>(n).fill(0));
+  const solve = (g: number[]): number[] =>
+    pinv(
+      Array.from(
+        mulAT(
+          c.rows,
+          Float64Array.from(g, (v, i) => k[i] * v),
+        ),
+      ),
+    );
+  return { kept, k, source, rank, redundancies: keptCount - rank, undetermined: rank < n, solve, pinv, apply };
 }
 
 /** Body b's twist about the file origin (ω, v) from a scaled twist (analysis.md §1). */

@@ -1,36 +1,67 @@
 /**
- * npm run bench: rank-analysis time for generated layouts of 1–500 bodies (6–7 contacts a body, chains
- * and trees), the structured engine (analysis.md §12) beside the dense SVD, median of several runs, and
- * the process's peak resident memory, printed as a table. Speed targets live here, never in timed tests.
- * The dense path is skipped above --dense-max bodies (its cost grows with the cube).
- * Usage: npm run bench [-- --max-bodies 100] [-- --runs 5] [-- --dense-max 200]
+ * npm run bench: engine time for generated layouts of 10–500 bodies in four shapes — a chain, a tree, a star
+ * (a bench carrying mounts) and a mesh with loops — the structured engine (analysis.md §12) beside the dense
+ * path and beside LAPACK's dense SVD of the same matrix (numpy, timed in the same run when python3 with numpy
+ * is installed; `apt-get install python3-numpy`), with the process's peak resident memory. Then the full
+ * analysis (rank, bases, seating, foundation, temperature, repeatability) of a 500-body, 5,000-contact
+ * instrument and the engine time of a one-body layout. Speed targets live here, never in timed tests.
+ * Usage: npm run bench [-- --max-bodies 200] [-- --runs 3] [-- --dense-max 100] [-- --lapack-max 200]
  */
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import os from "node:os";
+import path from "node:path";
 import { analyseConstraint } from "../../lib/analysis/constraint";
+import { analyseLayout } from "../../lib/analysis";
+import { parseLayoutBytes } from "../../lib/layout";
 import type { Layout, Vec3 } from "../../lib/layout/model";
 import { rng } from "../support/layouts";
 
-function generate(bodies: number, tree: boolean, seed: number): Layout {
+type Shape = "chain" | "tree" | "star" | "mesh";
+
+/**
+ * A generated layout: `perBody` contacts a body with random normals. chain: each body on the one before;
+ * tree: on a random earlier one; star: every body on body 0 (a bench on the ground carrying mounts);
+ * mesh: bodies on a grid, each on its left and its upper neighbour (ground at the edges), which closes loops.
+ */
+function generate(bodies: number, shape: Shape, seed: number, perBody = 6.5): Layout {
   const r = rng(seed);
   const contacts: Layout["contacts"] = [];
+  const side = Math.ceil(Math.sqrt(bodies));
   for (let b = 0; b < bodies; b++) {
-    const parent = b === 0 ? "ground" : tree ? `b${Math.floor(r() * b)}` : `b${b - 1}`;
-    const origin: Vec3 = [b * 120, (r() - 0.5) * 200, (r() - 0.5) * 100];
-    const count = 6 + (r() < 0.5 ? 1 : 0);
+    const [gx, gy] = [b % side, Math.floor(b / side)];
+    const origin: Vec3 =
+      shape === "mesh"
+        ? [gx * 150, gy * 150, 0]
+        : shape === "star"
+          ? [(r() - 0.5) * 2000, (r() - 0.5) * 1200, 100]
+          : [b * 120, (r() - 0.5) * 200, (r() - 0.5) * 100];
+    const parents =
+      b === 0
+        ? ["ground"]
+        : shape === "chain"
+          ? [`b${b - 1}`]
+          : shape === "tree"
+            ? [`b${Math.floor(r() * b)}`]
+            : shape === "star"
+              ? ["b0"]
+              : [gx > 0 ? `b${b - 1}` : "ground", gy > 0 ? `b${b - side}` : "ground"];
+    const count = Math.floor(perBody) + (r() < perBody % 1 ? 1 : 0);
     for (let k = 0; k < count; k++) {
       const n: Vec3 = [r() - 0.5, r() - 0.5, r() - 0.5];
       contacts.push({
         id: `c${contacts.length}`,
         body: `b${b}`,
-        on: k === 6 && b > 1 ? "ground" : parent,
+        on: parents[k % parents.length],
         point: [origin[0] + (r() - 0.5) * 80, origin[1] + (r() - 0.5) * 80, origin[2] + (r() - 0.5) * 80],
         normal: n,
-        sense: "unilateral",
+        sense: "bilateral",
       });
     }
   }
   return {
     format: "mount-layout/1",
-    name: `bench ${bodies}`,
+    name: `bench ${shape} ${bodies}`,
     units: { length: "mm", force: "N" },
     gravity: [0, 0, -9.80665],
     tolerance: 1e-6,
@@ -43,6 +74,26 @@ function generate(bodies: number, tree: boolean, seed: number): Layout {
   };
 }
 
+/** The generated layout as a whole instrument: masses, seat stiffness, materials, scatter and one functional point a body. */
+function instrument(layout: Layout): Layout {
+  const com = (id: string): Vec3 => {
+    const pts = layout.contacts.filter((c) => c.body === id).map((c) => c.point);
+    return [0, 1, 2].map((j) => pts.reduce((s, p) => s + p[j], 0) / Math.max(1, pts.length)) as Vec3;
+  };
+  return {
+    ...layout,
+    materials: [
+      { id: "bench-steel", expansionPerK: 11.7e-6 },
+      { id: "mount-alloy", expansionPerK: 23e-6 },
+    ],
+    groundMaterial: "bench-steel",
+    defaultScatter: 0.0005,
+    bodies: layout.bodies.map((b, i) => ({ ...b, mass: i === 0 ? 150 : 1.5, centerOfMass: com(b.id), material: i === 0 ? "bench-steel" : "mount-alloy" })),
+    contacts: layout.contacts.map((c, i) => ({ ...c, stiffness: 2e4 * (1 + (i % 4)) })),
+    points: layout.bodies.map((b) => ({ id: `p-${b.id}`, body: b.id, point: com(b.id) })),
+  };
+}
+
 const args = process.argv.slice(2);
 const arg = (name: string, def: number) => {
   const i = args.indexOf(name);
@@ -50,35 +101,95 @@ const arg = (name: string, def: number) => {
 };
 const maxBodies = arg("--max-bodies", 500);
 const denseMax = arg("--dense-max", 100);
+const lapackMax = arg("--lapack-max", 200);
 const runs = arg("--runs", 3);
 const median = (xs: number[]) => xs.slice().sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+const rss = () => (process.resourceUsage().maxRSS / 1024).toFixed(0);
 
-const time = (layout: Layout, method: "dense" | "structured", n: number) => {
+function time<T>(f: () => T, n: number): { ms: number; value: T } {
   const times: number[] = [];
-  let rank = 0;
+  let value!: T;
   for (let i = 0; i < n; i++) {
     const t0 = performance.now();
-    rank = analyseConstraint(layout, method).counts.rank;
+    value = f();
     times.push(performance.now() - t0);
   }
-  return { ms: median(times), rank };
-};
+  return { ms: median(times), value };
+}
 
-console.log("| bodies | layout | contacts | matrix | rank | structured ms | dense ms | LAPACK reference ms | peak RSS MB |");
-console.log("|---:|---|---:|---|---:|---:|---:|---:|---:|");
-const lapack: Record<number, string> = { 1: "—", 10: "1.4", 50: "23", 100: "130", 200: "750", 500: "—" };
-for (const bodies of [1, 10, 50, 100, 200, 500].filter((b) => b <= maxBodies)) {
-  for (const tree of [false, true]) {
-    if (bodies === 1 && tree) continue;
-    const layout = generate(bodies, tree, bodies * 7 + (tree ? 1 : 0));
-    const n = bodies >= 100 ? Math.max(1, Math.min(runs, 2)) : runs;
-    const s = time(layout, "structured", n);
-    const d = bodies <= denseMax ? time(layout, "dense", n) : null;
-    if (d && d.rank !== s.rank) throw new Error(`rank differs at ${bodies} bodies: dense ${d.rank}, structured ${s.rank}`);
+const numpy = spawnSync("python3", ["-c", "import numpy"], { encoding: "utf8" }).status === 0;
+const work = mkdtempSync(path.join(os.tmpdir(), "sixfold-bench-"));
+/** numpy.linalg.svd of the same scaled matrix (singular values and both bases), median of `n` runs, in ms. */
+function lapackMs(layout: Layout, n: number): number | null {
+  if (!numpy) return null;
+  const { rows } = analyseConstraint(layout, "structured");
+  const dense = new Float64Array(rows.m * rows.n);
+  for (let i = 0; i < rows.m; i++)
+    for (const [b, sign] of [
+      [rows.b1[i], 1],
+      [rows.b2[i], -1],
+    ])
+      if (b >= 0) for (let j = 0; j < 6; j++) dense[i * rows.n + 6 * b + j] += sign * rows.v[6 * i + j];
+  const file = path.join(work, "a.f64");
+  writeFileSync(file, dense);
+  const script = `import numpy as np, time, statistics
+A = np.fromfile(${JSON.stringify(file)}, dtype='<f8').reshape(${rows.m}, ${rows.n})
+t = []
+for _ in range(${n}):
+    t0 = time.perf_counter(); np.linalg.svd(A); t.append(time.perf_counter() - t0)
+print(statistics.median(t) * 1000)`;
+  const out = spawnSync("python3", ["-c", script], { encoding: "utf8" });
+  return out.status === 0 ? Number(out.stdout.trim()) : null;
+}
+
+console.log(
+  `Machine: ${os.cpus()[0]?.model ?? "unknown CPU"}, ${os.availableParallelism()} cores, Node ${process.version}${numpy ? "" : " (no numpy: LAPACK column empty)"}`,
+);
+console.log("");
+console.log("| bodies | layout | contacts | matrix | rank | structured ms | dense ms | LAPACK (numpy) ms | LAPACK ÷ structured | peak RSS MB |");
+console.log("|---:|---|---:|---|---:|---:|---:|---:|---:|---:|");
+const fmt = (x: number | null) => (x === null ? "—" : x < 10 ? x.toFixed(1) : x.toFixed(0));
+for (const bodies of [10, 50, 100, 200, 500].filter((b) => b <= maxBodies)) {
+  for (const shape of ["chain", "tree", "star", "mesh"] as Shape[]) {
+    const layout = generate(bodies, shape, bodies * 7 + shape.length);
+    const n = bodies >= 200 ? Math.max(1, Math.min(runs, 2)) : runs;
+    // one warm-up run so the JIT has compiled the loops (a server's worker thread is long-lived)
+    analyseConstraint(layout, "structured");
+    const s = time(() => analyseConstraint(layout, "structured"), n);
+    const d = bodies <= denseMax ? time(() => analyseConstraint(layout, "dense"), Math.min(n, 2)) : null;
+    if (d && d.value.counts.rank !== s.value.counts.rank)
+      throw new Error(`rank differs at ${bodies} bodies (${shape}): dense ${d.value.counts.rank}, structured ${s.value.counts.rank}`);
+    const lap = bodies <= lapackMax ? lapackMs(layout, bodies >= 200 ? 2 : 3) : null;
     const m = layout.contacts.length;
-    const rss = (process.resourceUsage().maxRSS / 1024).toFixed(0);
     console.log(
-      `| ${bodies} | ${tree ? "tree" : "chain"} | ${m} | ${m}×${6 * bodies} | ${s.rank} | ${s.ms.toFixed(1)} | ${d ? d.ms.toFixed(1) : "—"} | ${lapack[bodies]} | ${rss} |`,
+      `| ${bodies} | ${shape} | ${m} | ${m}×${6 * bodies} | ${s.value.counts.rank} | ${fmt(s.ms)} | ${fmt(d?.ms ?? null)} | ${fmt(lap)} | ${lap === null ? "—" : `${(lap / s.ms).toFixed(1)}×`} | ${rss()} |`,
     );
   }
 }
+
+if (maxBodies >= 500) {
+  console.log("");
+  console.log("Whole instrument, full analysis (rank, bases, seating, foundation, temperature, repeatability):");
+  console.log("");
+  console.log("| layout | bodies | contacts | points | rank | redundancies | full analysis ms | peak RSS MB |");
+  console.log("|---|---:|---:|---:|---:|---:|---:|---:|");
+  for (const shape of ["star", "mesh"] as Shape[]) {
+    const layout = instrument(generate(500, shape, 9100 + shape.length, 10));
+    const t = time(() => analyseLayout(layout), 1);
+    const c = t.value.constraint.counts;
+    console.log(`| ${shape} | ${c.bodies} | ${c.contacts} | ${layout.points.length} | ${c.rank} | ${c.redundancies} | ${fmt(t.ms)} | ${rss()} |`);
+  }
+}
+
+// one body: the engine's own time on an example file (the command-line checker's start-up is measured apart)
+const one = parseLayoutBytes(new Uint8Array(readFileSync(path.join("examples", "mirror-cell-three-vee.json"))), { fileName: "mirror-cell-three-vee.json" });
+if (one.ok) {
+  analyseLayout(one.layout);
+  console.log("");
+  console.log(
+    `One-body layout (examples/mirror-cell-three-vee.json), full analysis: ${time(() => analyseLayout(one.layout), 20).ms.toFixed(2)} ms (median of 20)`,
+  );
+}
+const cli = time(() => spawnSync(process.execPath, ["scripts/check.mjs", "examples/mirror-cell-three-vee.json"], { encoding: "utf8" }), 5);
+console.log(`Command-line checker on it, wall time: ${cli.ms.toFixed(0)} ms (median of 5, node scripts/check.mjs; npm run adds its own start-up)`);
+rmSync(work, { recursive: true, force: true });

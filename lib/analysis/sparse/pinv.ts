@@ -49,6 +49,11 @@ export class PinvSystem {
     return max;
   }
 
+  /** one step of the shifted factor with the null space projected out: (Aᵀ W A + εI)⁻¹ r, a preconditioner for refinement */
+  step(r: ArrayLike<number>): Float64Array {
+    return this.project(solveFactor(this.F, r));
+  }
+
   /** (Aᵀ W A)⁺ rhs */
   apply(rhs: ArrayLike<number>): Float64Array {
     const b = this.project(rhs);
@@ -60,7 +65,8 @@ export class PinvSystem {
       const Mx = mulGram(this.R, this.w, x);
       const res = b.map((v, i) => v - Mx[i]);
       const rn = Math.sqrt(res.reduce((s, v) => s + v * v, 0));
-      if (rn >= best && pass > 2) break;
+      // stop at round-off: the residual no longer halves
+      if (pass > 1 && rn > 0.5 * best) break;
       best = Math.min(best, rn);
       if (rn <= 1e-16 * bNorm) break;
       const dx = this.project(solveFactor(this.F, res));

@@ -108,21 +108,35 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
   const w = inBasis.map((b) => (b ? 1 : 0));
   const sys = new PinvSystem(R, w, spectrum, tolerance);
   const states: SelfStressState[] = [];
+  const basis = idx.filter((i) => inBasis[i]);
+  const norm = (v: Float64Array) => {
+    let t = 0;
+    for (let i = 0; i < v.length; i++) t += v[i] * v[i];
+    return Math.sqrt(t);
+  };
+  const res = new Float64Array(R.n);
   for (const p of pivots) {
-    const a = new Float64Array(R.n);
-    const o = 6 * p;
-    if (R.b1[p] >= 0) for (let j = 0; j < 6; j++) a[6 * R.b1[p] + j] += R.v[o + j];
-    if (R.b2[p] >= 0) for (let j = 0; j < 6; j++) a[6 * R.b2[p] + j] -= R.v[o + j];
-    const y = sys.apply(a);
+    // λ_C = −A_C (A_CᵀA_C)⁺ a_p by refinement on the balance itself: start from λ_p = 1 alone, then
+    // λ_C −= A_C step(Aᵀλ) while the residual falls. Every update lies in range(A_C), so the fixed point is
+    // the minimum-norm (canonical) state; each step shrinks the error by ε/(μ+ε) ≤ 1/100
     const lam = new Float64Array(R.m);
     lam[p] = 1;
-    for (let i = 0; i < R.m; i++) if (inBasis[i]) lam[i] = -rowDot(R, i, y);
-    // refinement on the forces themselves: res = Aᵀλ (should be 0), λ_C −= A_C (A_CᵀA_C)⁺ res
-    for (let step = 0; step < 4; step++) {
-      const res = new Float64Array(R.n);
-      for (let i = 0; i < R.m; i++) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
-      const dy = sys.apply(res);
-      for (let i = 0; i < R.m; i++) if (inBasis[i]) lam[i] -= rowDot(R, i, dy);
+    res.fill(0);
+    addRowT(R, p, 1, res);
+    const aNorm = norm(res);
+    let best = Infinity;
+    for (let step = 0; step < 60; step++) {
+      if (step > 0) {
+        res.fill(0);
+        addRowT(R, p, 1, res);
+        for (const i of basis) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
+      }
+      const rn = norm(res);
+      // stop at round-off: the residual no longer halves
+      if (rn <= 1e-16 * aNorm || (step > 1 && rn > 0.5 * best)) break;
+      best = Math.min(best, rn);
+      const dy = sys.step(res);
+      for (const i of basis) lam[i] -= rowDot(R, i, dy);
     }
     let max = 0;
     for (const v of lam) max = Math.max(max, Math.abs(v));

@@ -6,7 +6,7 @@
  * Written here because no npm package offers sparse eigen- or singular-value solvers; the small dense
  * decompositions come from ml-matrix.
  */
-import { EigenvalueDecomposition, Matrix } from "ml-matrix";
+import { EigenvalueDecomposition, Matrix, QrDecomposition } from "ml-matrix";
 import { svdRight } from "../linalg";
 import { factorGram, minimumDegreeOrder, solveFactor, type BlockFactor } from "./cholesky";
 import { mulGram, rowDot, type SparseRows } from "./rows";
@@ -113,6 +113,17 @@ export function shiftedFactor(R: SparseRows, w: ArrayLike<number>, shift: number
   throw new Error("block Cholesky factor failed at every shift");
 }
 
+/** min(‖u − v‖, ‖u + v‖) for unit vectors: how far apart two directions are, to round-off. */
+function unitDistance(u: Float64Array, v: Float64Array): number {
+  let a = 0;
+  let b = 0;
+  for (let i = 0; i < u.length; i++) {
+    a += (u[i] - v[i]) ** 2;
+    b += (u[i] + v[i]) ** 2;
+  }
+  return Math.sqrt(Math.min(a, b));
+}
+
 /** Projector distance ‖N_new − N_old N_oldᵀ N_new‖_F between two orthonormal column sets. */
 function subspaceGap(oldB: Float64Array[], newB: Float64Array[]): number {
   if (oldB.length !== newB.length) return Infinity;
@@ -147,18 +158,23 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
   const { F } = shiftedFactor(R, w, (0.1 * tau) ** 2);
   const rnd = seeded(11);
   const sqrtW = Array.from(w, (x) => Math.sqrt(x));
-  let p = Math.min(n, nullHint + 4);
+  // a few directions beyond the expected null space: σ_r converges by (σ_r / σ_{p+1})² an iteration
+  let p = Math.min(n, nullHint + 8);
   let Q = orthonormalise(Array.from({ length: p }, () => Float64Array.from({ length: n }, () => rnd())));
   let prevNull: Float64Array[] = [];
   let prevWeak: Float64Array | null = null;
   let prevSigma = NaN;
   let result: LowSpectrum | null = null;
+  let [bestNull, bestWeak, stallNull, stallWeak] = [Infinity, Infinity, 0, 0];
   for (let iter = 0; iter < 200; iter++) {
     const Z = orthonormalise(Q.map((q) => solveFactor(F, q)));
-    // Rayleigh–Ritz on B: singular values and right vectors of B Z
-    const C = new Matrix(R.m, Z.length);
-    for (let c = 0; c < Z.length; c++) for (let i = 0; i < R.m; i++) if (sqrtW[i] !== 0) C.set(i, c, sqrtW[i] * rowDot(R, i, Z[c]));
-    const { s, V } = svdRight(C);
+    // Rayleigh–Ritz on B: singular values and right vectors of B Z, through its Householder QR (B Z = QR
+    // has R's singular values and right vectors; backward stable, and the SVD is then k × k, not m × k)
+    const rowsUsed: number[] = [];
+    for (let i = 0; i < R.m; i++) if (sqrtW[i] !== 0) rowsUsed.push(i);
+    const C = new Matrix(Math.max(rowsUsed.length, Z.length), Z.length);
+    for (let c = 0; c < Z.length; c++) rowsUsed.forEach((i, r) => C.set(r, c, sqrtW[i] * rowDot(R, i, Z[c])));
+    const { s, V } = svdRight(new QrDecomposition(C).upperTriangularMatrix);
     const k = Z.length;
     const sig = Array.from({ length: k }, (_, j) => s[j] ?? 0);
     // ascending order: column k−1−j of V belongs to sig[k−1−j]
@@ -180,18 +196,29 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
       Q = orthonormalise([...ritz, ...Array.from({ length: p - k }, () => Float64Array.from({ length: n }, () => rnd()))]);
       prevNull = [];
       prevWeak = null;
+      [bestNull, bestWeak, stallNull, stallWeak] = [Infinity, Infinity, 0, 0];
       continue;
     }
     const nullB = ritz.slice(0, f);
     const weak = f < k ? ritz[f] : null;
     const sigma = f < k ? vals[f] : NaN;
     const gapNull = subspaceGap(prevNull, nullB);
-    const gapWeak = weak && prevWeak ? Math.sqrt(Math.max(0, 1 - dotv(weak, prevWeak) ** 2)) : weak ? Infinity : 0;
+    // the distance between the unit vectors (up to sign), not √(1 − cos²), which cannot resolve below 1e-8
+    const gapWeak = weak && prevWeak ? unitDistance(weak, prevWeak) : weak ? Infinity : 0;
     const sigmaSettled = !weak || Math.abs(sigma - prevSigma) <= 1e-14 * sigma;
     // a repeated σ_r (identical mounts) has no single direction: then only its value must settle
     const weakUnique = !weak || f + 1 >= k || vals[f + 1] - sigma > 1e-8 * sigma;
     result = { sigmaMax: smax, rank: n - f, nullBasis: nullB, weakest: weak ? { sigma, vector: weak } : null };
-    if (iter > 0 && gapNull < 1e-12 && (gapWeak < 1e-11 || !weakUnique) && sigmaSettled) break;
+    // settled: the subspaces stop moving (1e-12), or they stand still at round-off, which near-null directions
+    // just under the threshold reach sooner (below 1e-10 and no longer halving for three iterations)
+    stallNull = gapNull > 0.5 * bestNull ? stallNull + 1 : 0;
+    stallWeak = gapWeak > 0.5 * bestWeak ? stallWeak + 1 : 0;
+    bestNull = Math.min(bestNull, gapNull);
+    bestWeak = Math.min(bestWeak, gapWeak);
+    const nullSettled = gapNull < 1e-12 || (gapNull < 1e-10 && stallNull >= 3);
+    const weakSettled = gapWeak < 1e-11 || (gapWeak < 1e-9 && stallWeak >= 3) || !weakUnique;
+    const valueSettled = sigmaSettled || (iter >= 3 && Math.abs(sigma - prevSigma) <= 1e-12 * sigma);
+    if (iter > 0 && nullSettled && weakSettled && valueSettled) break;
     prevNull = nullB;
     prevWeak = weak;
     prevSigma = sigma;
