@@ -1,7 +1,7 @@
 /** foundation-coupling: the support to ground is over-constrained, so the base's shape leaks into the part. */
 import { z } from "zod";
 import { defineRule, fill } from "./types";
-import { featuresOf } from "./describe";
+import { featuresOf, listIds } from "./describe";
 import { num } from "@/lib/analysis/format";
 import { GROUND } from "@/lib/layout/model";
 import { unitLabel } from "@/lib/layout/units";
@@ -55,7 +55,7 @@ export default defineRule({
     }
     lines.push(
       "",
-      `The base's shape reaches the part through ${involved.join(", ")}. **Repair.** Support on three seats (exact constraint), or make one support compliant along its normal.`,
+      `The base's shape reaches the part through ${listIds(involved)}. **Repair.** Support on three seats (exact constraint), or make one support compliant along its normal.`,
     );
     return [
       {

@@ -1,8 +1,11 @@
 /** redundant-constraint: a self-stress state exists (one finding per state of the canonical basis). */
 import { z } from "zod";
 import { defineRule, fill } from "./types";
-import { featuresOf, rowLabel, rowNames } from "./describe";
+import { featuresOf, largestRows, listIds, rowLabel, rowNames } from "./describe";
 import { num } from "@/lib/analysis/format";
+
+/** Rows of the coefficient table in a finding (the pivot and the largest coefficients). */
+const TABLE_ROWS = 40;
 
 /** Message templates: {name} is filled with the finding's values (`fill`, rules/types.ts). */
 const messages = {
@@ -28,10 +31,13 @@ export default defineRule({
       const others = rowNames(layout, contacts).filter((c) => c !== pivotName);
       const features = featuresOf(layout, contacts);
       const table = ["| contact | feature | coefficient |", "|---|---|---|"];
-      for (const c of contacts) {
-        const f = layout.contacts.find((k) => k.id === c)?.feature ?? "—";
-        table.push(`| ${rowLabel(layout, c)} | ${f} | ${num(state.forces[c])} |`);
-      }
+      const feature = new Map(layout.contacts.map((k) => [k.id, k.feature]));
+      // a loop through a whole instrument can hold thousands of contacts: the table keeps the pivot and the
+      // largest coefficients (in contact order), the report's selfStress keeps them all
+      const shown = new Set(largestRows(contacts, (c) => (c === state.pivot ? Infinity : state.forces[c]), TABLE_ROWS));
+      for (const c of contacts) if (shown.has(c)) table.push(`| ${rowLabel(layout, c)} | ${feature.get(c) ?? "—"} | ${num(state.forces[c])} |`);
+      const hidden = contacts.length - shown.size;
+      const listed = listIds(contacts);
       return {
         title: fill(messages.title, {
           pivot: pivotName,
@@ -41,8 +47,9 @@ export default defineRule({
           `These contact forces (per unit force at the pivot ${state.pivot}) balance each other with no load, so a misfit or a deforming base locks them into the part.${selfStressDimension > selfStress.length ? ` (${selfStressDimension} states in all; the first ${selfStress.length} are listed.)` : ""}`,
           "",
           table.join("\n"),
+          ...(hidden > 0 ? ["", `${hidden} more contacts with smaller coefficients are in the report (selfStress).`] : []),
           "",
-          `**Repair.** Removing any one of ${contacts.join(", ")} ends this loop without adding a free motion${features.length ? ` (features ${features.join(", ")})` : ""}; so does making one of them compliant along its normal.`,
+          `**Repair.** Removing any one of ${listed} ends this loop without adding a free motion${features.length ? ` (features ${features.join(", ")})` : ""}; so does making one of them compliant along its normal.`,
         ].join("\n"),
         contacts: contacts.slice().sort(),
         features,

@@ -1,7 +1,7 @@
 /** thermal-mismatch: an over-constrained support fights the thermal growth and its contacts load up. */
 import { z } from "zod";
 import { defineRule, fill } from "./types";
-import { featuresOf, rowLabel, rowNames } from "./describe";
+import { featuresOf, largestRows, listIds, rowLabel, rowNames } from "./describe";
 import { num } from "@/lib/analysis/format";
 import { unitLabel } from "@/lib/layout/units";
 
@@ -36,11 +36,13 @@ export default defineRule({
     const names = rowNames(layout, rows);
     const lines: string[] = [];
     lines.push(
-      `The support has ${t.redundancies} redundant constraint${t.redundancies === 1 ? "" : "s"} in service, and the expansion mismatch is fought by **${names.join(", ")}**.`,
+      `The support has ${t.redundancies} redundant constraint${t.redundancies === 1 ? "" : "s"} in service, and the expansion mismatch is fought by **${listIds(names)}**.`,
     );
     if (t.forcesPerK && maxPerK !== null) {
       lines.push("", `| row | force change per K (${fu}) | over ${num(swing)} K (${fu}) |`, "|---|---|---|");
-      for (const id of rows) lines.push(`| ${rowLabel(layout, id)} | ${num(t.forcesPerK[id])} | ${num(t.forcesPerK[id] * swing)} |`);
+      const shown = largestRows(rows, (id) => t.forcesPerK![id]);
+      for (const id of shown) lines.push(`| ${rowLabel(layout, id)} | ${num(t.forcesPerK[id])} | ${num(t.forcesPerK[id] * swing)} |`);
+      if (shown.length < rows.length) lines.push("", `${rows.length - shown.length} more rows with smaller changes are in the report (thermal.forcesPerK).`);
       lines.push(
         "",
         `Largest change **${num(maxPerK * swing)} ${fu}** over ${num(swing)} K (stiffness: ${t.stiffness})${mean > 0 ? `, ${num(((maxPerK * swing) / mean) * 100, 3)} % of the mean seated force ${num(mean)} ${fu} (threshold ${options.fraction * 100} %)` : ""}.`,

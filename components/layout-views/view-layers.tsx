@@ -69,18 +69,32 @@ const overlaps = (a: [number, number, number, number], b: [number, number, numbe
 export function placeLabels(
   items: { key: string; x: number; y: number; text: string; fontSize: number; spots: [number, number, "start" | "end"][] }[],
 ): Map<string, LabelSpot | null> {
-  const placed: [number, number, number, number][] = [];
+  // placed boxes are kept in a grid of 40-unit cells, so a whole instrument's thousands of labels cost
+  // a look at the few boxes nearby rather than at every box placed before
+  const CELL = 40;
+  const grid = new Map<string, [number, number, number, number][]>();
+  const cells = (b: [number, number, number, number]) => {
+    const keys: string[] = [];
+    for (let gx = Math.floor(b[0] / CELL); gx <= Math.floor((b[0] + b[2]) / CELL); gx++)
+      for (let gy = Math.floor(b[1] / CELL); gy <= Math.floor((b[1] + b[3]) / CELL); gy++) keys.push(`${gx},${gy}`);
+    return keys;
+  };
   const out = new Map<string, LabelSpot | null>();
   for (const it of items) {
     let spot: LabelSpot | null = null;
     for (const [dx, dy, anchor] of it.spots) {
       const box = labelBox(it.x + dx, it.y + dy, it.text, it.fontSize, anchor);
-      if (!placed.some((p) => overlaps(p, box))) {
+      if (!cells(box).some((k) => grid.get(k)?.some((p) => overlaps(p, box)))) {
         spot = { x: it.x + dx, y: it.y + dy, anchor, box };
         break;
       }
     }
-    if (spot) placed.push(spot.box);
+    if (spot)
+      for (const k of cells(spot.box)) {
+        const list = grid.get(k);
+        if (list) list.push(spot.box);
+        else grid.set(k, [spot.box]);
+      }
     out.set(it.key, spot);
   }
   return out;

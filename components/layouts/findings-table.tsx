@@ -1,5 +1,8 @@
 "use client";
-/** The findings table of a revision: sortable columns, filters by severity, status and rule, and search. */
+/**
+ * The findings table of a revision: sortable columns, filters by severity, status and rule, and search;
+ * paginated (50 a page) so a whole instrument's hundreds of findings do not stall the page.
+ */
 import Link from "next/link";
 import { useMemo, useState } from "react";
 import {
@@ -7,6 +10,7 @@ import {
   flexRender,
   getCoreRowModel,
   getFilteredRowModel,
+  getPaginationRowModel,
   getSortedRowModel,
   useReactTable,
   type SortingState,
@@ -27,6 +31,8 @@ export interface FindingRow {
 }
 
 const sevRank = { error: 0, warning: 1, info: 2 } as const;
+/** Findings a page of the table shows. */
+const PAGE = 50;
 const col = createColumnHelper<FindingRow>();
 
 export function FindingsTable({ findings }: { findings: FindingRow[] }) {
@@ -69,7 +75,11 @@ export function FindingsTable({ findings }: { findings: FindingRow[] }) {
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
     getFilteredRowModel: getFilteredRowModel(),
+    getPaginationRowModel: getPaginationRowModel(),
+    initialState: { pagination: { pageIndex: 0, pageSize: PAGE } },
   });
+  const { pageIndex } = table.getState().pagination;
+  const pages = table.getPageCount();
   const rules = [...new Set(findings.map((f) => f.rule))].sort();
 
   return (
@@ -145,6 +155,19 @@ export function FindingsTable({ findings }: { findings: FindingRow[] }) {
               ))}
             </tbody>
           </table>
+          {pages > 1 && (
+            <div className="flex flex-wrap items-center gap-2 border-t border-paper-line px-3 py-2 text-xs" data-testid="findings-pages">
+              <button type="button" className="btn-quiet py-0.5" disabled={!table.getCanPreviousPage()} onClick={() => table.previousPage()}>
+                ← previous
+              </button>
+              <span className="num">
+                findings {pageIndex * PAGE + 1}–{Math.min((pageIndex + 1) * PAGE, data.length)} of {data.length} (page {pageIndex + 1} of {pages})
+              </span>
+              <button type="button" className="btn-quiet py-0.5" disabled={!table.getCanNextPage()} onClick={() => table.nextPage()}>
+                next →
+              </button>
+            </div>
+          )}
         </div>
       )}
     </section>

@@ -90,22 +90,25 @@ export function rref(rowsIn: number[][], tol = 1e-9): { rows: number[][]; pivots
 export function alignBasis(Q: Matrix, candidates: number[]): Matrix {
   const n = Q.rows;
   const q = Q.columns;
+  // in Q's coordinates: e_idx projects to row idx of Q (Q orthonormal), a chosen vector b = Q β, and
+  // lengths are kept, so each candidate costs O(q · chosen) rather than O(n · q)
+  const rowOf = (idx: number) => Q.getRow(idx);
   const chosen: number[][] = [];
   for (let step = 0; step < q; step++) {
     let best: number[] | null = null;
     let bestNorm = -1;
     for (const idx of candidates) {
-      // p = Q Qᵀ e_idx − Σ b (b · e_idx)
-      const p = new Array<number>(n).fill(0);
-      for (let c = 0; c < q; c++) {
-        const coef = Q.get(idx, c);
-        if (coef !== 0) for (let i = 0; i < n; i++) p[i] += coef * Q.get(i, c);
-      }
+      // π = Qᵀ e_idx − Σ β (β · Qᵀ e_idx)
+      const r = rowOf(idx);
+      const p = r.slice();
       for (const b of chosen) {
-        const coef = b[idx];
-        if (coef !== 0) for (let i = 0; i < n; i++) p[i] -= coef * b[i];
+        let coef = 0;
+        for (let c = 0; c < q; c++) coef += b[c] * r[c];
+        if (coef !== 0) for (let c = 0; c < q; c++) p[c] -= coef * b[c];
       }
-      const len = Math.hypot(...p);
+      let len = 0;
+      for (let c = 0; c < q; c++) len += p[c] * p[c];
+      len = Math.sqrt(len);
       if (len > bestNorm + 1e-12) {
         bestNorm = len;
         best = p;
@@ -115,6 +118,10 @@ export function alignBasis(Q: Matrix, candidates: number[]): Matrix {
     chosen.push(best.map((v) => v / bestNorm));
   }
   const out = new Matrix(n, chosen.length);
-  chosen.forEach((b, c) => out.setColumn(c, b));
+  chosen.forEach((beta, col) => {
+    const v = new Array<number>(n).fill(0);
+    for (let c = 0; c < q; c++) if (beta[c] !== 0) for (let i = 0; i < n; i++) v[i] += beta[c] * Q.get(i, c);
+    out.setColumn(col, v);
+  });
   return out;
 }

@@ -6,7 +6,7 @@
  * Written here because no npm package offers sparse eigen- or singular-value solvers; the small dense
  * decompositions come from ml-matrix.
  */
-import { EigenvalueDecomposition, Matrix, QrDecomposition } from "ml-matrix";
+import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { svdRight } from "../linalg";
 import { factorGram, minimumDegreeOrder, solveFactor, type BlockFactor } from "./cholesky";
 import { mulGram, rowDot, type SparseRows } from "./rows";
@@ -46,6 +46,40 @@ function orthonormalise(cols: Float64Array[]): Float64Array[] {
     if (len > 1e-12 * before && len > 0) out.push(c.map((v) => v / len));
   }
   return out;
+}
+
+/**
+ * The R factor (k × k) of the Householder QR of a tall matrix given by its k columns (each of length ≥ k):
+ * B Z = QR has R's singular values and right singular vectors.
+ */
+function householderR(cols: Float64Array[]): Matrix {
+  const k = cols.length;
+  const m = k ? cols[0].length : 0;
+  const A = cols.map((c) => Float64Array.from(c));
+  const Rm = new Matrix(k, k);
+  for (let j = 0; j < k; j++) {
+    const a = A[j];
+    let norm = 0;
+    for (let i = j; i < m; i++) norm += a[i] * a[i];
+    norm = Math.sqrt(norm);
+    if (norm > 0) {
+      const alpha = a[j] > 0 ? -norm : norm;
+      // v = a_j − α e_j (stored in place from row j), H = I − 2 v vᵀ / vᵀv
+      a[j] -= alpha;
+      let vv = 0;
+      for (let i = j; i < m; i++) vv += a[i] * a[i];
+      for (let c = j + 1; c < k; c++) {
+        const b = A[c];
+        let d = 0;
+        for (let i = j; i < m; i++) d += a[i] * b[i];
+        const f = (2 * d) / vv;
+        for (let i = j; i < m; i++) b[i] -= f * a[i];
+      }
+      a[j] = alpha;
+    }
+    for (let c = j; c < k; c++) Rm.set(j, c, A[c][j]);
+  }
+  return Rm;
 }
 
 /** σ_max(B) by Lanczos on BᵀB with full reorthogonalisation. */
@@ -166,15 +200,18 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
   let prevSigma = NaN;
   let result: LowSpectrum | null = null;
   let [bestNull, bestWeak, stallNull, stallWeak] = [Infinity, Infinity, 0, 0];
+  const rowsUsed: number[] = [];
+  for (let i = 0; i < R.m; i++) if (sqrtW[i] !== 0) rowsUsed.push(i);
   for (let iter = 0; iter < 200; iter++) {
     const Z = orthonormalise(Q.map((q) => solveFactor(F, q)));
     // Rayleigh–Ritz on B: singular values and right vectors of B Z, through its Householder QR (B Z = QR
     // has R's singular values and right vectors; backward stable, and the SVD is then k × k, not m × k)
-    const rowsUsed: number[] = [];
-    for (let i = 0; i < R.m; i++) if (sqrtW[i] !== 0) rowsUsed.push(i);
-    const C = new Matrix(Math.max(rowsUsed.length, Z.length), Z.length);
-    for (let c = 0; c < Z.length; c++) rowsUsed.forEach((i, r) => C.set(r, c, sqrtW[i] * rowDot(R, i, Z[c])));
-    const { s, V } = svdRight(new QrDecomposition(C).upperTriangularMatrix);
+    const C = Z.map((z) => {
+      const col = new Float64Array(Math.max(rowsUsed.length, Z.length));
+      rowsUsed.forEach((i, r) => (col[r] = sqrtW[i] * rowDot(R, i, z)));
+      return col;
+    });
+    const { s, V } = svdRight(householderR(C));
     const k = Z.length;
     const sig = Array.from({ length: k }, (_, j) => s[j] ?? 0);
     // ascending order: column k−1−j of V belongs to sig[k−1−j]
@@ -215,8 +252,14 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
     stallWeak = gapWeak > 0.5 * bestWeak ? stallWeak + 1 : 0;
     bestNull = Math.min(bestNull, gapNull);
     bestWeak = Math.min(bestWeak, gapWeak);
-    const nullSettled = gapNull < 1e-12 || (gapNull < 1e-10 && stallNull >= 3);
-    const weakSettled = gapWeak < 1e-11 || (gapWeak < 1e-9 && stallWeak >= 3) || !weakUnique;
+    // an invariant subspace is determined only to about ε_mach · σ_max / (its gap to the next singular value):
+    // asking for more just iterates on round-off (a cluster straddling the threshold)
+    const below = f > 0 ? vals[f - 1] : 0;
+    const above = f + 1 < k ? vals[f + 1] : Infinity;
+    const nullTol = f > 0 && f < k ? Math.max(1e-12, (1e-15 * smax) / Math.max(vals[f] - below, 1e-300)) : 1e-12;
+    const weakTol = weak ? Math.max(1e-11, (1e-15 * smax) / Math.max(Math.min(sigma - below, above - sigma), 1e-300)) : 1e-11;
+    const nullSettled = gapNull < nullTol || (gapNull < 1e-10 && stallNull >= 3);
+    const weakSettled = gapWeak < weakTol || (gapWeak < 1e-9 && stallWeak >= 3) || !weakUnique;
     const valueSettled = sigmaSettled || (iter >= 3 && Math.abs(sigma - prevSigma) <= 1e-12 * sigma);
     if (iter > 0 && nullSettled && weakSettled && valueSettled) break;
     prevNull = nullB;

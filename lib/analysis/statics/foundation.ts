@@ -6,7 +6,7 @@ import { GROUND } from "@/lib/layout/model";
 import { STATICS } from "../tolerances";
 import { addRowT } from "../sparse/rows";
 import { factorStiff, separation, solveWith } from "./solver";
-import type { CaseResult, Ctx, Factor, FoundationResult, StiffnessSource } from "./types";
+import type { CaseResult, Ctx, Factor, FoundationResult, GroundSolves, StiffnessSource } from "./types";
 
 /**
  * The stiffness the foundation (and the functional points) use: every contact when nothing is redundant
@@ -22,7 +22,14 @@ export function foundationStiffness(ctx: Ctx, first: CaseResult, source: Stiffne
 }
 
 /** The foundation result, or null without a stiffness magnitude. */
-export function analyseFoundation(ctx: Ctx, first: CaseResult, source: StiffnessSource, kFound: number[] | null): FoundationResult | null {
+export function analyseFoundation(
+  ctx: Ctx,
+  first: CaseResult,
+  source: StiffnessSource,
+  kFound: number[] | null,
+  /** the factor and each ground contact's 1 µm response, shared with the functional points (one solve each) */
+  shared?: GroundSolves,
+): FoundationResult | null {
   const { layout, c, m } = ctx;
   if (!kFound) return null;
   const ground = layout.contacts.map((k, i) => (k.on === GROUND ? i : -1)).filter((i) => i >= 0);
@@ -31,11 +38,13 @@ export function analyseFoundation(ctx: Ctx, first: CaseResult, source: Stiffness
   let factor: Factor | null = null;
   const columnOf = (d: number[]): number[] => {
     // (AᵀKA) u = AᵀK d over the active contacts, then Δλ = K (d − A u)
-    factor ??= factorStiff(
-      ctx,
-      kFound.map((v) => (v > 0 ? v : 1)),
-      active,
-    );
+    factor ??=
+      shared?.factor() ??
+      factorStiff(
+        ctx,
+        kFound.map((v) => (v > 0 ? v : 1)),
+        active,
+      );
     const Kd = d.map((v, i) => (active[i] ? kFound[i] * v : 0));
     const w = new Array<number>(ctx.n).fill(0);
     for (let i = 0; i < m; i++) if (Kd[i] !== 0) addRowT(c.rows, i, Kd[i], w);
@@ -48,7 +57,15 @@ export function analyseFoundation(ctx: Ctx, first: CaseResult, source: Stiffness
   for (const j of ground) {
     const d = new Array<number>(m).fill(0);
     d[j] = perUm;
-    const col = c.counts.redundancies === 0 ? new Array<number>(m).fill(0) : columnOf(d);
+    const col =
+      c.counts.redundancies === 0
+        ? new Array<number>(m).fill(0)
+        : shared
+          ? (() => {
+              const u = shared.twist(j);
+              return d.map((v, i) => (active[i] ? kFound[i] * (v - separation(ctx, i, u)) : 0));
+            })()
+          : columnOf(d);
     const entry: Record<string, number> = {};
     layout.contacts.forEach((k, i) => {
       const v = Math.abs(col[i]) < STATICS.foundationRoundOff * (kMax * perUm) ? 0 : col[i];

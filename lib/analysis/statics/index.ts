@@ -11,7 +11,9 @@ import { hertzUsable, materialTable } from "./context";
 import { analyseFoundation, foundationStiffness } from "./foundation";
 import { analysePoints } from "./points";
 import { solveCase } from "./seating";
-import type { CaseResult, Ctx, StaticsResult, StiffnessSource } from "./types";
+import { factorStiff, solveWith } from "./solver";
+import { addRowT } from "../sparse/rows";
+import type { CaseResult, Ctx, Factor, GroundSolves, StaticsResult, StiffnessSource } from "./types";
 
 export type { CaseResult, FoundationResult, HertzEntry, PointMotion, SeatingResult, StaticsResult, StiffnessSource } from "./types";
 export { hertzUsable } from "./context";
@@ -57,12 +59,35 @@ export function analyseStatics(layout: Layout, c: ConstraintAnalysis): StaticsRe
   const first = cases[0];
   const kFound = foundationStiffness(ctx, first, source);
   const fileStiffness = source === "file" ? layout.contacts.map((k) => k.stiffness!) : null;
+  // the foundation map and the functional points solve the same system for each ground contact's 1 µm rise
+  // when every active contact has a stiffness: solve it once for both
+  const shared = kFound && first.active.every((a, i) => !a || kFound[i] > 0) ? groundTwists(ctx, first.active, kFound) : undefined;
   return {
     hasLoad,
     stiffnessSource: source,
     fileStiffness,
     cases,
-    foundation: analyseFoundation(ctx, first, source, kFound),
-    points: analysePoints(ctx, first, kFound),
+    foundation: analyseFoundation(ctx, first, source, kFound, shared),
+    points: analysePoints(ctx, first, kFound, shared),
+  };
+}
+
+/** u_j = (AᵀKA)⁺ Aᵀ K e_j · 1 µm for ground contact j, over the active contacts, each solved once on first use. */
+function groundTwists(ctx: Ctx, active: boolean[], k: number[]): GroundSolves {
+  const perUm = 1e-6 / ctx.toMetre;
+  const cache = new Map<number, number[]>();
+  let f: Factor | null = null;
+  const factor = () => (f ??= factorStiff(ctx, k, active));
+  return {
+    factor,
+    twist: (j) => {
+      const known = cache.get(j);
+      if (known) return known;
+      const w = new Array<number>(ctx.n).fill(0);
+      addRowT(ctx.c.rows, j, k[j] * perUm, w);
+      const u = solveWith(ctx, factor(), w).u;
+      cache.set(j, u);
+      return u;
+    },
   };
 }

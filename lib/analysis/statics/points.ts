@@ -4,10 +4,10 @@ import { scale } from "../vec";
 import { addRowT } from "../sparse/rows";
 import { pointDisplacement } from "./context";
 import { factorStiff, solveWith } from "./solver";
-import type { CaseResult, Ctx, PointMotion } from "./types";
+import type { CaseResult, Ctx, GroundSolves, PointMotion } from "./types";
 
 /** Point motions with the foundation's stiffness (equal when it has none). */
-export function analysePoints(ctx: Ctx, first: CaseResult, kFound: number[] | null): Record<string, PointMotion> {
+export function analysePoints(ctx: Ctx, first: CaseResult, kFound: number[] | null, shared?: GroundSolves): Record<string, PointMotion> {
   const { layout, c } = ctx;
   const points: Record<string, PointMotion> = {};
   if (!layout.points.length) return points;
@@ -16,18 +16,21 @@ export function analysePoints(ctx: Ctx, first: CaseResult, kFound: number[] | nu
   const k = kFound ?? layout.contacts.map(() => 1);
   const active = first.active;
   for (const pt of layout.points) points[pt.id] = { perMicrometre: {}, seatedUm: null, body: pt.body };
-  const factor = ground.length
-    ? factorStiff(
+  let factor: ReturnType<typeof factorStiff> | null = null;
+  for (const j of ground) {
+    if (!active[j]) continue;
+    let u: number[];
+    if (shared) u = shared.twist(j);
+    else {
+      factor ??= factorStiff(
         ctx,
         k.map((v) => (v > 0 ? v : 1)),
         active,
-      )
-    : null;
-  for (const j of ground) {
-    if (!active[j]) continue;
-    const w = new Array<number>(ctx.n).fill(0);
-    addRowT(c.rows, j, k[j] * perUm, w);
-    const { u } = solveWith(ctx, factor!, w);
+      );
+      const w = new Array<number>(ctx.n).fill(0);
+      addRowT(c.rows, j, k[j] * perUm, w);
+      u = solveWith(ctx, factor, w).u;
+    }
     for (const pt of layout.points) points[pt.id].perMicrometre[layout.contacts[j].id] = scale(pointDisplacement(ctx, pt.body, pt.point, u), 1 / perUm);
   }
   if (first.displacement) {

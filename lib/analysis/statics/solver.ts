@@ -88,9 +88,15 @@ export function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
   // iterative refinement on the forces themselves: res = Aᵀλ + P w, δu = (AᵀKA)⁺ res, λ −= K A δu
   // (recomputing λ from a refined u cannot beat the rounding of A u when u is large)
   const target = project(w);
+  const tNorm = Math.hypot(...target);
+  let prev = Infinity;
   for (let step = 0; step < STATICS.refinementSteps; step++) {
     const res = target.slice();
     for (const i of rows) if (lambda[i] !== 0) addRowT(ctx.c.rows, i, lambda[i], res);
+    // balanced to round-off already, or no longer improving: another solve would only add noise
+    const rn = Math.hypot(...res);
+    if (rn <= 1e-16 * tNorm || rn > 0.5 * prev) break;
+    prev = rn;
     const du = applyPinv(res);
     for (let q = 0; q < ctx.n; q++) u[q] += du[q];
     applyKA(du, -1);

@@ -97,3 +97,10 @@ export interface Factor {
   /** largest component of w along an orthonormal basis of that null space */
   nullAlong(w: number[]): number;
 }
+
+/** The stiffness factor of the first case's active contacts and each ground contact's 1 µm response, shared by the foundation map and the functional points. */
+export interface GroundSolves {
+  factor(): Factor;
+  /** the twist u_j for a 1 µm rise of ground contact j */
+  twist(j: number): number[];
+}
