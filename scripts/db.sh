@@ -38,7 +38,8 @@ up() {
     mariadbd --no-defaults --datadir="$DATA" --user=root --bind-address=127.0.0.1 \
       --port="$PORT" --socket="$SOCK" --pid-file="$PID" --log-error="$LOG" \
       --skip-name-resolve --character-set-server=utf8mb4 --collation-server=utf8mb4_unicode_ci \
-      --innodb-buffer-pool-size=64M --max-connections=300 >/dev/null 2>&1 &
+      --innodb-buffer-pool-size=64M --max-connections=300 \
+      --max-allowed-packet=256M >/dev/null 2>&1 &  # a whole instrument's report runs to tens of MB
     for _ in $(seq 1 150); do admin ping >/dev/null 2>&1 && break; sleep 0.2; done
     admin ping >/dev/null 2>&1 || { echo "[db] server did not start; see $LOG" >&2; tail -20 "$LOG" >&2; exit 1; }
     echo "[db] $INSTANCE up on 127.0.0.1:$PORT" >&2

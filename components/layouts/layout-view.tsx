@@ -44,6 +44,8 @@ interface RevisionData {
 }
 
 const fmt = (iso: string) => iso.slice(0, 16).replace("T", " ");
+/** Above this many contacts the drawings wait for a click (the findings come first). */
+const LARGE_DRAWING = 1500;
 
 export function LayoutView({
   layoutId,
@@ -59,6 +61,7 @@ export function LayoutView({
   const lq = useQuery({ queryKey: ["layout", layoutId], queryFn: () => fetchJson<LayoutData>(`/api/layouts/${layoutId}`) });
   const [selected, setSelected] = useState<number | null>(initialRevision);
   const [compareWith, setCompareWith] = useState<number | null>(null);
+  const [drawLarge, setDrawLarge] = useState(false);
   // the body filter lives in the address (?body=…) so a link shows the same narrowed page
   const params = useSearchParams();
   const pathname = usePathname();
@@ -250,7 +253,21 @@ export function LayoutView({
           <FindingsTable findings={rev.findings} />
 
           <BodyFilter layout={rev.layout} value={shownBody} onChange={setBody} />
-          <LayoutDrawings layout={rev.layout} report={rev.report} focusBody={shownBody} onFocusBody={setBody} />
+          {rev.report.counts.contacts > LARGE_DRAWING && !drawLarge ? (
+            // a whole instrument's four views are tens of thousands of elements: drawn when asked, so the
+            // summary and findings come up at once
+            <section className="sheet flex flex-wrap items-center gap-3 p-4 text-sm" data-testid="drawings-deferred">
+              <span>
+                Drawings of {rev.report.counts.contacts.toLocaleString("en")} contacts on {rev.report.counts.bodies} bodies: the four views take a few seconds
+                to draw.
+              </span>
+              <button type="button" className="btn" onClick={() => setDrawLarge(true)}>
+                Draw the four views
+              </button>
+            </section>
+          ) : (
+            <LayoutDrawings layout={rev.layout} report={rev.report} focusBody={shownBody} onFocusBody={setBody} />
+          )}
 
           <LoadCaseTable report={rev.report} scope={scope!} />
           <FlexurePanel layout={rev.layout} scope={scope!} />
