@@ -17,6 +17,10 @@ export interface BlockFactor {
   diag: Float64Array[];
   /** per step: W_q = L⁻¹ M_pq for the later steps q it couples to */
   off: Map<number, Float64Array>[];
+  /** the same blocks flattened for the solves: step p's blocks are offPtr[p] … offPtr[p+1]−1 */
+  offPtr: Int32Array;
+  offStep: Int32Array;
+  offVal: Float64Array;
 }
 
 /** The body graph of the rows with a non-zero weight: adjacency sets. */
@@ -148,12 +152,24 @@ export function factorGram(R: SparseRows, w: ArrayLike<number>, shift: number, o
       }
     }
   }
-  return { N, order, pos, diag, off: upper };
+  const offPtr = new Int32Array(N + 1);
+  for (let p = 0; p < N; p++) offPtr[p + 1] = offPtr[p] + upper[p].size;
+  const offStep = new Int32Array(offPtr[N]);
+  const offVal = new Float64Array(36 * offPtr[N]);
+  for (let p = 0; p < N; p++) {
+    let k = offPtr[p];
+    for (const [q, W] of upper[p]) {
+      offStep[k] = q;
+      offVal.set(W, 36 * k);
+      k++;
+    }
+  }
+  return { N, order, pos, diag, off: upper, offPtr, offStep, offVal };
 }
 
 /** Solves (Aᵀ W A + shift·I) x = b with a factor (b in body order, 6 per body). */
 export function solveFactor(F: BlockFactor, b: ArrayLike<number>): Float64Array {
-  const { N, order, diag, off } = F;
+  const { N, order, diag, offPtr, offStep, offVal: V } = F;
   // work in elimination order
   const y = new Float64Array(6 * N);
   for (let p = 0; p < N; p++) for (let j = 0; j < 6; j++) y[6 * p + j] = b[6 * order[p] + j];
@@ -166,25 +182,25 @@ export function solveFactor(F: BlockFactor, b: ArrayLike<number>): Float64Array 
       for (let k = 0; k < i; k++) s -= L[6 * i + k] * y[o + k];
       y[o + i] = s / L[7 * i];
     }
-    for (const [q, W] of off[p]) {
-      const oq = 6 * q;
-      for (let c = 0; c < 6; c++) {
-        let s = 0;
-        for (let k = 0; k < 6; k++) s += W[6 * k + c] * y[o + k];
-        y[oq + c] -= s;
-      }
+    const [y0, y1, y2, y3, y4, y5] = [y[o], y[o + 1], y[o + 2], y[o + 3], y[o + 4], y[o + 5]];
+    for (let e = offPtr[p]; e < offPtr[p + 1]; e++) {
+      const oq = 6 * offStep[e];
+      const w = 36 * e;
+      for (let c = 0; c < 6; c++)
+        y[oq + c] -= V[w + c] * y0 + V[w + 6 + c] * y1 + V[w + 12 + c] * y2 + V[w + 18 + c] * y3 + V[w + 24 + c] * y4 + V[w + 30 + c] * y5;
     }
   }
   // backward: x_p = L⁻ᵀ (y_p − Σ W_q x_q)
   for (let p = N - 1; p >= 0; p--) {
     const L = diag[p];
     const o = 6 * p;
-    for (const [q, W] of off[p]) {
-      const oq = 6 * q;
+    for (let e = offPtr[p]; e < offPtr[p + 1]; e++) {
+      const oq = 6 * offStep[e];
+      const w = 36 * e;
+      const [x0, x1, x2, x3, x4, x5] = [y[oq], y[oq + 1], y[oq + 2], y[oq + 3], y[oq + 4], y[oq + 5]];
       for (let r = 0; r < 6; r++) {
-        let s = 0;
-        for (let c = 0; c < 6; c++) s += W[6 * r + c] * y[oq + c];
-        y[o + r] -= s;
+        const wr = w + 6 * r;
+        y[o + r] -= V[wr] * x0 + V[wr + 1] * x1 + V[wr + 2] * x2 + V[wr + 3] * x3 + V[wr + 4] * x4 + V[wr + 5] * x5;
       }
     }
     for (let i = 5; i >= 0; i--) {

@@ -242,12 +242,13 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
     const gapNull = subspaceGap(prevNull, nullB);
     // the distance between the unit vectors (up to sign), not √(1 − cos²), which cannot resolve below 1e-8
     const gapWeak = weak && prevWeak ? unitDistance(weak, prevWeak) : weak ? Infinity : 0;
-    const sigmaSettled = !weak || Math.abs(sigma - prevSigma) <= 1e-14 * sigma;
+    const sigmaSettled = !weak || Math.abs(sigma - prevSigma) <= 1e-13 * sigma;
     // a repeated σ_r (identical mounts) has no single direction: then only its value must settle
     const weakUnique = !weak || f + 1 >= k || vals[f + 1] - sigma > 1e-8 * sigma;
     result = { sigmaMax: smax, rank: n - f, nullBasis: nullB, weakest: weak ? { sigma, vector: weak } : null };
-    // settled: the subspaces stop moving (1e-12), or they stand still at round-off, which near-null directions
-    // just under the threshold reach sooner (below 1e-10 and no longer halving for three iterations)
+    // settled: the null space stops moving (1e-11: the free motions are read to far better than 1e-8), the
+    // weakest direction (shown as a screw to four digits) to 1e-9, or they stand still at round-off, which
+    // near-null directions just under the threshold reach sooner (below 1e-10 and no longer halving)
     stallNull = gapNull > 0.5 * bestNull ? stallNull + 1 : 0;
     stallWeak = gapWeak > 0.5 * bestWeak ? stallWeak + 1 : 0;
     bestNull = Math.min(bestNull, gapNull);
@@ -256,8 +257,8 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
     // asking for more just iterates on round-off (a cluster straddling the threshold)
     const below = f > 0 ? vals[f - 1] : 0;
     const above = f + 1 < k ? vals[f + 1] : Infinity;
-    const nullTol = f > 0 && f < k ? Math.max(1e-12, (1e-15 * smax) / Math.max(vals[f] - below, 1e-300)) : 1e-12;
-    const weakTol = weak ? Math.max(1e-11, (1e-15 * smax) / Math.max(Math.min(sigma - below, above - sigma), 1e-300)) : 1e-11;
+    const nullTol = f > 0 && f < k ? Math.max(1e-11, (1e-15 * smax) / Math.max(vals[f] - below, 1e-300)) : 1e-11;
+    const weakTol = weak ? Math.max(1e-9, (1e-15 * smax) / Math.max(Math.min(sigma - below, above - sigma), 1e-300)) : 1e-9;
     const nullSettled = gapNull < nullTol || (gapNull < 1e-10 && stallNull >= 3);
     const weakSettled = gapWeak < weakTol || (gapWeak < 1e-9 && stallWeak >= 3) || !weakUnique;
     const valueSettled = sigmaSettled || (iter >= 3 && Math.abs(sigma - prevSigma) <= 1e-12 * sigma);
