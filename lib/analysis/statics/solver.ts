@@ -93,9 +93,10 @@ export function solveWith(ctx: Ctx, f: Factor, w: number[]): Solve {
   for (let step = 0; step < STATICS.refinementSteps; step++) {
     const res = target.slice();
     for (const i of rows) if (lambda[i] !== 0) addRowT(ctx.c.rows, i, lambda[i], res);
-    // balanced to round-off already, or no longer improving: another solve would only add noise
+    // balanced to 1e-13 (forces are read to 1e-9 of the largest), or no longer improving: another solve
+    // would only add noise
     const rn = Math.hypot(...res);
-    if (rn <= 1e-16 * tNorm || rn > 0.5 * prev) break;
+    if (rn <= 1e-13 * tNorm || rn > 0.5 * prev) break;
     prev = rn;
     const du = applyPinv(res);
     for (let q = 0; q < ctx.n; q++) u[q] += du[q];
