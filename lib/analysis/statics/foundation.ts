@@ -51,35 +51,34 @@ export function analyseFoundation(
     const { u } = solveWith(ctx, factor, w);
     return d.map((v, i) => (active[i] ? kFound[i] * (v - separation(ctx, i, u)) : 0));
   };
-  const sensitivity: Record<string, Record<string, number>> = {};
-  let max = 0;
   const kMax = Math.max(...kFound);
-  for (const j of ground) {
+  const cols = ground.map((j) => {
+    if (c.counts.redundancies === 0) return new Float64Array(m);
     const d = new Array<number>(m).fill(0);
     d[j] = perUm;
-    const col =
-      c.counts.redundancies === 0
-        ? new Array<number>(m).fill(0)
-        : shared
-          ? (() => {
-              const u = shared.twist(j);
-              return d.map((v, i) => (active[i] ? kFound[i] * (v - separation(ctx, i, u)) : 0));
-            })()
-          : columnOf(d);
+    if (!shared) return Float64Array.from(columnOf(d));
+    const u = shared.twist(j);
+    return Float64Array.from(d, (v, i) => (active[i] ? kFound[i] * (v - separation(ctx, i, u)) : 0));
+  });
+  let max = 0;
+  for (const col of cols)
+    for (let i = 0; i < m; i++) {
+      if (Math.abs(col[i]) < STATICS.foundationRoundOff * (kMax * perUm)) col[i] = 0;
+      max = Math.max(max, Math.abs(col[i]));
+    }
+  // large layouts: the map is ground contacts × all contacts; entries below 1e-12 of the largest may be left out
+  // (analysis.md §8, a missing entry is zero), which keeps the report's size in proportion to what is coupled;
+  // decided before the entries are written (deleting a million keys afterwards cost half a second)
+  const sparse = ground.length * m > STATICS.sparseFoundationEntries;
+  const sensitivity: Record<string, Record<string, number>> = {};
+  ground.forEach((j, g) => {
+    const col = cols[g];
     const entry: Record<string, number> = {};
     layout.contacts.forEach((k, i) => {
-      const v = Math.abs(col[i]) < STATICS.foundationRoundOff * (kMax * perUm) ? 0 : col[i];
-      entry[k.id] = v;
-      max = Math.max(max, Math.abs(v));
+      if (!sparse || Math.abs(col[i]) > STATICS.foundationRoundOff * max) entry[k.id] = col[i];
     });
     sensitivity[layout.contacts[j].id] = entry;
-  }
-  // large layouts: the map is ground contacts × all contacts; entries below 1e-12 of the largest may be left out
-  // (analysis.md §8, a missing entry is zero), which keeps the report's size in proportion to what is coupled
-  if (ground.length * m > STATICS.sparseFoundationEntries) {
-    for (const col of Object.values(sensitivity))
-      for (const [id, v] of Object.entries(col)) if (Math.abs(v) <= STATICS.foundationRoundOff * max) delete col[id];
-  }
+  });
   const warp =
     c.counts.redundancies === 0
       ? []
