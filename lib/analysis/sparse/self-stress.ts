@@ -7,6 +7,7 @@
  * balance λ_p = 1, A_Cᵀ λ_C = −a_pᵀ on the basis rows C, solved with the sparse pseudo-inverse.
  * Written here because no npm package offers a row-sequential sparse QR.
  */
+import { Matrix, solve } from "ml-matrix";
 import { MAX_SELF_STRESS_LISTED, type SelfStressState } from "../constraint";
 import { PinvSystem } from "./pinv";
 import { addRowT, rowDot, type SparseRows } from "./rows";
@@ -114,8 +115,15 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     for (let i = 0; i < v.length; i++) t += v[i] * v[i];
     return Math.sqrt(t);
   };
+  const local = localSolver(R, basis);
   const res = new Float64Array(R.n);
   for (const p of pivots) {
+    // most loops close between a body and its neighbour: solved there, exactly, when they do
+    const near = local(p);
+    if (near) {
+      states.push(stateOf(near, p));
+      continue;
+    }
     // λ_C = −A_C (A_CᵀA_C)⁺ a_p by refinement on the balance itself: start from λ_p = 1 alone, then
     // λ_C −= A_C step(Aᵀλ) while the residual falls. Every update lies in range(A_C), so the fixed point is
     // the minimum-norm (canonical) state; each step shrinks the error by ε/(μ+ε) ≤ 1/100
@@ -138,11 +146,68 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
       const dy = sys.step(res);
       for (const i of basis) lam[i] -= rowDot(R, i, dy);
     }
+    states.push(stateOf(lam, p));
+  }
+  return states;
+
+  function stateOf(lam: Float64Array, p: number): SelfStressState {
     let max = 0;
     for (const v of lam) max = Math.max(max, Math.abs(v));
     const forces: Record<string, number> = {};
     for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
-    states.push({ pivot: contactIds[p], forces });
+    return { pivot: contactIds[p], forces };
   }
-  return states;
+}
+
+/**
+ * The state of a pivot from the basis rows near it. The basis rows are independent, so −a_p has exactly one
+ * expression in them: if the rows among the pivot's own bodies (then among those and their neighbours) already
+ * express it — a small dense least-squares problem with a residual at round-off — that is the state, with
+ * zero on every other row. Null when no small neighbourhood closes the loop (the caller iterates globally).
+ */
+function localSolver(R: SparseRows, basis: number[]): (p: number) => Float64Array | null {
+  const byBody = new Map<number, number[]>();
+  for (const i of basis)
+    for (const b of [R.b1[i], R.b2[i]]) {
+      if (b < 0) continue;
+      const list = byBody.get(b);
+      if (list) list.push(i);
+      else byBody.set(b, [i]);
+    }
+  const bodiesOf = (i: number) => [R.b1[i], R.b2[i]].filter((b) => b >= 0);
+  return (p) => {
+    const near = new Set(bodiesOf(p));
+    for (let ring = 0; ring < 2; ring++) {
+      if (ring === 1) for (const b of [...near]) for (const i of byBody.get(b) ?? []) for (const x of bodiesOf(i)) near.add(x);
+      const rows = [...new Set([...near].flatMap((b) => byBody.get(b) ?? []))].filter((i) => bodiesOf(i).every((b) => near.has(b)));
+      const bodies = [...near];
+      if (!rows.length || rows.length > 60 || bodies.length > 10) continue;
+      const col = new Map(bodies.map((b, k) => [b, 6 * k]));
+      const M = new Matrix(6 * bodies.length, rows.length);
+      const rhs = new Matrix(6 * bodies.length, 1);
+      const put = (i: number, into: (q: number, v: number) => void) => {
+        for (const [b, sign] of [
+          [R.b1[i], 1],
+          [R.b2[i], -1],
+        ])
+          if (b >= 0) for (let j = 0; j < 6; j++) into(col.get(b)! + j, sign * R.v[6 * i + j]);
+      };
+      rows.forEach((i, c) => put(i, (q, v) => M.set(q, c, M.get(q, c) + v)));
+      put(p, (q, v) => rhs.set(q, 0, rhs.get(q, 0) - v));
+      if (M.rows < M.columns) continue;
+      let x: Matrix;
+      try {
+        x = solve(M, rhs);
+      } catch {
+        continue;
+      }
+      const r = M.mmul(x).sub(rhs);
+      if (!(r.norm() <= 1e-12 * rhs.norm())) continue;
+      const lam = new Float64Array(R.m);
+      lam[p] = 1;
+      rows.forEach((i, c) => (lam[i] = x.get(c, 0)));
+      return lam;
+    }
+    return null;
+  };
 }
