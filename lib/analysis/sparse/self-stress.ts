@@ -166,22 +166,65 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
  * zero on every other row. Null when no small neighbourhood closes the loop (the caller iterates globally).
  */
 function localSolver(R: SparseRows, basis: number[]): (p: number) => Float64Array | null {
+  // basis rows by body: those to ground only (solo), and every row touching the body
   const byBody = new Map<number, number[]>();
-  for (const i of basis)
-    for (const b of [R.b1[i], R.b2[i]]) {
-      if (b < 0) continue;
-      const list = byBody.get(b);
-      if (list) list.push(i);
-      else byBody.set(b, [i]);
+  const solo = new Map<number, number[]>();
+  const push = (m: Map<number, number[]>, b: number, i: number) => {
+    const list = m.get(b);
+    if (list) list.push(i);
+    else m.set(b, [i]);
+  };
+  for (const i of basis) {
+    const [a, b] = [R.b1[i], R.b2[i]];
+    if (a >= 0) push(byBody, a, i);
+    if (b >= 0 && b !== a) push(byBody, b, i);
+    if (a < 0 || b < 0 || a === b) push(solo, Math.max(a, b), i);
+  }
+  const MAX_BODIES = 10;
+  const MAX_ROWS = 60;
+  const other = (i: number, b: number) => (R.b1[i] === b ? R.b2[i] : R.b1[i]);
+  /** basis rows whose bodies all lie in `near`: a row joining two of them is in both lists, so the largest list is skipped */
+  const rowsWithin = (near: Set<number>): number[] | null => {
+    const bodies = [...near];
+    const largest = bodies.reduce((x, y) => ((byBody.get(y)?.length ?? 0) > (byBody.get(x)?.length ?? 0) ? y : x));
+    const rows = new Set<number>(solo.get(largest) ?? []);
+    for (const b of bodies) {
+      if (b === largest) continue;
+      for (const i of byBody.get(b) ?? []) {
+        const o = other(i, b);
+        if (o < 0 || o === b || near.has(o)) rows.add(i);
+      }
+      if (rows.size > MAX_ROWS) return null;
     }
-  const bodiesOf = (i: number) => [R.b1[i], R.b2[i]].filter((b) => b >= 0);
+    return rows.size && rows.size <= MAX_ROWS ? [...rows] : null;
+  };
   return (p) => {
-    const near = new Set(bodiesOf(p));
+    const near = new Set([R.b1[p], R.b2[p]].filter((b) => b >= 0));
+    if (!near.size) return null;
     for (let ring = 0; ring < 2; ring++) {
-      if (ring === 1) for (const b of [...near]) for (const i of byBody.get(b) ?? []) for (const x of bodiesOf(i)) near.add(x);
-      const rows = [...new Set([...near].flatMap((b) => byBody.get(b) ?? []))].filter((i) => bodiesOf(i).every((b) => near.has(b)));
+      if (ring === 1) {
+        // the neighbours of the pivot's bodies, unless that makes the problem large (a hub's neighbours)
+        let tooMany = false;
+        for (const b of [...near]) {
+          const list = byBody.get(b) ?? [];
+          if (list.length > 4 * MAX_ROWS) {
+            tooMany = true;
+            break;
+          }
+          for (const i of list) {
+            const o = other(i, b);
+            if (o >= 0) near.add(o);
+          }
+          if (near.size > MAX_BODIES) {
+            tooMany = true;
+            break;
+          }
+        }
+        if (tooMany) break;
+      }
+      const rows = rowsWithin(near);
+      if (!rows) continue;
       const bodies = [...near];
-      if (!rows.length || rows.length > 60 || bodies.length > 10) continue;
       const col = new Map(bodies.map((b, k) => [b, 6 * k]));
       const M = new Matrix(6 * bodies.length, rows.length);
       const rhs = new Matrix(6 * bodies.length, 1);

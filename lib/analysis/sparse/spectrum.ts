@@ -6,7 +6,7 @@
  * Written here because no npm package offers sparse eigen- or singular-value solvers; the small dense
  * decompositions come from ml-matrix.
  */
-import { EigenvalueDecomposition, Matrix } from "ml-matrix";
+import { Matrix } from "ml-matrix";
 import { svdRight } from "../linalg";
 import { factorGram, minimumDegreeOrder, solveFactor, type BlockFactor } from "./cholesky";
 import { mulGram, rowDot, type SparseRows } from "./rows";
@@ -82,6 +82,40 @@ function householderR(cols: Float64Array[]): Matrix {
   return Rm;
 }
 
+/**
+ * The largest eigenvalue of the symmetric tridiagonal matrix (diagonal a, off-diagonal b) by bisection on the
+ * Sturm sequence count (the classic method; a full eigen-decomposition of the Lanczos matrix at every check
+ * cost more than the Lanczos steps themselves). Converged to the spacing of doubles.
+ */
+function largestTridiagonalEigenvalue(a: number[], b: number[]): number {
+  const k = a.length;
+  // Gershgorin bounds
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < k; i++) {
+    const r = (i > 0 ? Math.abs(b[i - 1]) : 0) + (i + 1 < k ? Math.abs(b[i]) : 0);
+    lo = Math.min(lo, a[i] - r);
+    hi = Math.max(hi, a[i] + r);
+  }
+  // eigenvalues greater than x: sign changes of the LDLᵀ pivots of T − xI
+  const above = (x: number) => {
+    let count = 0;
+    let d = 1;
+    for (let i = 0; i < k; i++) {
+      d = a[i] - x - (i > 0 ? (b[i - 1] * b[i - 1]) / d : 0);
+      if (d === 0) d = -1e-300;
+      if (d > 0) count++;
+    }
+    return count;
+  };
+  for (let it = 0; it < 200 && hi - lo > 2e-16 * Math.max(Math.abs(lo), Math.abs(hi)); it++) {
+    const mid = 0.5 * (lo + hi);
+    if (above(mid) >= 1) lo = mid;
+    else hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
 /** σ_max(B) by Lanczos on BᵀB with full reorthogonalisation. */
 export function sigmaMax(R: SparseRows, w: ArrayLike<number>): number {
   const n = R.n;
@@ -105,16 +139,7 @@ export function sigmaMax(R: SparseRows, w: ArrayLike<number>): number {
       }
     const b = normv(z);
     if (j % 4 === 3 || b < 1e-14 * Math.max(...alpha.map(Math.abs)) || j === steps - 1) {
-      const k = alpha.length;
-      const T = new Matrix(k, k);
-      for (let i = 0; i < k; i++) {
-        T.set(i, i, alpha[i]);
-        if (i + 1 < k) {
-          T.set(i, i + 1, beta[i]);
-          T.set(i + 1, i, beta[i]);
-        }
-      }
-      const top = Math.max(...new EigenvalueDecomposition(T, { assumeSymmetric: true }).realEigenvalues);
+      const top = largestTridiagonalEigenvalue(alpha, beta);
       const settled = Math.abs(top - theta) <= 1e-15 * Math.abs(top);
       theta = top;
       if (settled || b < 1e-14 * Math.abs(top)) break;
