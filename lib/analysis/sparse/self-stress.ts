@@ -4,7 +4,8 @@
  * depends on the rows after it; the rest (the lexicographically last row basis of A) is found by one sweep
  * over the rows in reverse sorted order, each rotated into a growing triangular factor (row-wise Givens QR
  * in the body graph's elimination order, George and Heath's method). A pivot's state is then the unique
- * balance λ_p = 1, A_Cᵀ λ_C = −a_pᵀ on the basis rows C, solved with the sparse pseudo-inverse.
+ * balance λ_p = 1, A_Cᵀ λ_C = −a_pᵀ on the basis rows C: among the basis rows near the pivot when the loop
+ * closes there (a small dense least-squares problem, ml-matrix), else by refinement with the sparse factor.
  * Written here because no npm package offers a row-sequential sparse QR.
  */
 import { Matrix, solve } from "ml-matrix";

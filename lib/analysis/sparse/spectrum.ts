@@ -1,10 +1,11 @@
 /**
  * The extreme singular values of B = W^½ A without a dense decomposition (analysis.md §2, §12):
- * σ_max by Lanczos on BᵀB (full reorthogonalisation); the null space (σ < tolerance · σ_max), σ_r and its
- * right singular vector by subspace iteration with the block Cholesky factor of BᵀB + εI, finished by a
- * Rayleigh–Ritz step on B itself (an SVD of B Q, so nothing is read off a squared matrix).
- * Written here because no npm package offers sparse eigen- or singular-value solvers; the small dense
- * decompositions come from ml-matrix.
+ * σ_max by Lanczos on BᵀB (full reorthogonalisation, the Lanczos matrix's top eigenvalue by Sturm bisection);
+ * the null space (σ < tolerance · σ_max), σ_r and its right singular vector by subspace iteration with the
+ * block Cholesky factor of BᵀB + εI, each step finished by a Rayleigh–Ritz step on B itself (a Householder QR
+ * of B Q and the SVD of its small R, so nothing is read off a squared matrix).
+ * Written here because no npm package offers sparse eigen- or singular-value solvers; the small dense SVD
+ * comes from ml-matrix.
  */
 import { Matrix } from "ml-matrix";
 import { svdRight } from "../linalg";
