@@ -9,8 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import knexLib, { type Knex } from "knex";
 import { knexConfig } from "../../knexfile";
 import { toJson } from "@/lib/layout/serialize";
-import type { Layout, Vec3 } from "@/lib/layout/model";
-import { rng } from "../support/layouts";
+import { seatedChain } from "../support/instruments";
 
 const env = { ...process.env, DB_PORT: "3409", DB_NAME: "sixfold_fault", DB_USER: "sixfold", DB_PASSWORD: "sixfold-fault" };
 Object.assign(process.env, { DB_PORT: env.DB_PORT, DB_NAME: env.DB_NAME, DB_PASSWORD: env.DB_PASSWORD, DB_POOL_MAX: "4" });
@@ -25,32 +24,7 @@ let layoutId = 0;
 let designer = { id: 0, name: "", email: "", role: "designer" as const };
 
 function bigChain(bodies: number): Uint8Array {
-  const r = rng(11);
-  const contacts: Layout["contacts"] = [];
-  for (let b = 0; b < bodies; b++)
-    for (let k = 0; k < 6; k++)
-      contacts.push({
-        id: `c${b}-${k}`,
-        body: `b${b}`,
-        on: b === 0 ? "ground" : `b${b - 1}`,
-        point: [b * 100 + r() * 50, r() * 50, r() * 50] as Vec3,
-        normal: [r() - 0.5, r() - 0.5, r() - 0.5] as Vec3,
-        sense: "unilateral",
-      });
-  const l: Layout = {
-    format: "mount-layout/1",
-    name: "chain",
-    units: { length: "mm", force: "N" },
-    gravity: [0, 0, -9.80665],
-    tolerance: 1e-6,
-    intendedFreedoms: 0,
-    bodies: Array.from({ length: bodies }, (_, i) => ({ id: `b${i}` })),
-    materials: [],
-    contacts,
-    loads: [],
-    points: [],
-  };
-  return new TextEncoder().encode(toJson(l));
+  return new TextEncoder().encode(toJson(seatedChain(bodies, 11)));
 }
 
 beforeAll(async () => {

@@ -4,8 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { resetDatabase, testKnex } from "./setup-db";
 import type { SessionUser } from "@/lib/auth/session";
 import { toJson } from "@/lib/layout/serialize";
-import type { Layout, Vec3 } from "@/lib/layout/model";
-import { rng } from "../support/layouts";
+import { seatedChain } from "../support/instruments";
 
 const { uploadRevision } = await import("@/lib/upload");
 const { analyseInWorker, analysisPoolStats, closeAnalysisPool } = await import("@/lib/worker/run-analysis");
@@ -28,33 +27,7 @@ afterAll(async () => {
   await db().destroy();
 });
 
-function bigChain(bodies: number): Layout {
-  const r = rng(3);
-  const contacts: Layout["contacts"] = [];
-  for (let b = 0; b < bodies; b++)
-    for (let k = 0; k < 6; k++)
-      contacts.push({
-        id: `c${b}-${k}`,
-        body: `b${b}`,
-        on: b === 0 ? "ground" : `b${b - 1}`,
-        point: [b * 100 + r() * 50, r() * 50, r() * 50] as Vec3,
-        normal: [r() - 0.5, r() - 0.5, r() - 0.5] as Vec3,
-        sense: "unilateral",
-      });
-  return {
-    format: "mount-layout/1",
-    name: "chain",
-    units: { length: "mm", force: "N" },
-    gravity: [0, 0, -9.80665],
-    tolerance: 1e-6,
-    intendedFreedoms: 0,
-    bodies: Array.from({ length: bodies }, (_, i) => ({ id: `b${i}` })),
-    materials: [],
-    contacts,
-    loads: [],
-    points: [],
-  };
-}
+const bigChain = (bodies: number) => seatedChain(bodies, 3);
 
 describe("uploadRevision", () => {
   it("analyses in a worker thread: the main event loop keeps ticking during a large analysis", async () => {

@@ -48,9 +48,14 @@ export function generate(bodies: number, shape: Shape, seed: number, perBody = 6
       });
     }
   }
+  return generatedLayout(`bench ${shape} ${bodies}`, bodies, contacts);
+}
+
+/** A layout of bodies b0 … b(n−1) with the given contacts, millimetres and newtons, gravity down, nothing else. */
+export function generatedLayout(name: string, bodies: number, contacts: Layout["contacts"]): Layout {
   return {
     format: "mount-layout/1",
-    name: `bench ${shape} ${bodies}`,
+    name,
     units: { length: "mm", force: "N" },
     gravity: [0, 0, -9.80665],
     tolerance: 1e-6,
@@ -61,6 +66,23 @@ export function generate(bodies: number, shape: Shape, seed: number, perBody = 6
     loads: [],
     points: [],
   };
+}
+
+/** A chain of bodies, each on six random unilateral seats on the body before: the worker tests' slow upload. */
+export function seatedChain(bodies: number, seed: number): Layout {
+  const r = rng(seed);
+  const contacts: Layout["contacts"] = [];
+  for (let b = 0; b < bodies; b++)
+    for (let k = 0; k < 6; k++)
+      contacts.push({
+        id: `c${b}-${k}`,
+        body: `b${b}`,
+        on: b === 0 ? "ground" : `b${b - 1}`,
+        point: [b * 100 + r() * 50, r() * 50, r() * 50],
+        normal: [r() - 0.5, r() - 0.5, r() - 0.5],
+        sense: "unilateral",
+      });
+  return generatedLayout("chain", bodies, contacts);
 }
 
 /** The generated layout as a whole instrument: masses, seat stiffness, materials, scatter and one functional point a body. */
