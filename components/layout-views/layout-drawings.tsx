@@ -365,6 +365,14 @@ function OneView(props: OneViewProps) {
     labels: new Map(),
   };
   v.labels = placeLabels(labelItems(layout, view, v.px, v.emph));
+  // bodies in focus: those the emphasised contacts join, or every body when nothing is emphasised; the empty id
+  // counts as in focus only then, which tells the marks whether a focus narrows their labels on a crowded drawing
+  const focusKeyBodies = useMemo(() => {
+    if (!focusKey) return null;
+    const ids = new Set(focusKey.split("\u0000"));
+    return new Set(layout.contacts.filter((c) => ids.has(c.id)).flatMap((c) => [c.body, c.on]));
+  }, [layout, focusKey]);
+  const bodyEmph = (id: string) => !focusKeyBodies || (id !== "" && focusKeyBodies.has(id));
 
   return (
     <div className="relative">
@@ -402,8 +410,8 @@ function OneView(props: OneViewProps) {
         <FlexureLayer layout={file} view={view} px={v.px} emph={v.emph} />
         <ForceLayer v={v} />
         <ContactLayer v={v} />
-        <PointLayer layout={file} report={report} view={view} px={v.px} emph={v.emph} refPx={v.arrow * fit.scale} />
-        <ThermalLayer layout={file} report={report} view={view} px={v.px} emph={v.emph} arrow={v.arrow} />
+        <PointLayer layout={file} report={report} view={view} px={v.px} emph={v.emph} refPx={v.arrow * fit.scale} bodyEmph={bodyEmph} />
+        <ThermalLayer layout={file} report={report} view={view} px={v.px} emph={v.emph} arrow={v.arrow} bodyEmph={bodyEmph} />
         <MotionLayer v={v} />
         <ScaleBar v={v} />
       </svg>

@@ -16,6 +16,9 @@ interface LayerProps {
   emph: (id: string) => boolean;
 }
 
+/** Labels of per-body and per-point marks beyond this many are left off unless their body is in focus. */
+const LABELLED_MARKS = 30;
+
 /** Wires as lines from end to end; blades as thin rectangles (root edge, tip edge, width). */
 export function FlexureLayer({ layout, view, px, emph }: LayerProps & { layout: Layout }) {
   const pt = (p: Vec3) => px(project(p, view));
@@ -55,21 +58,30 @@ export function FlexureLayer({ layout, view, px, emph }: LayerProps & { layout: 
 }
 
 /** Thermal centre of each body (a ringed cross) and each point's drift direction per kelvin. */
-export function ThermalLayer({ report, layout, view, px, arrow }: LayerProps & { report: Report; layout: Layout; arrow: number }) {
+export function ThermalLayer({
+  report,
+  layout,
+  view,
+  px,
+  arrow,
+  bodyEmph,
+}: LayerProps & { report: Report; layout: Layout; arrow: number; bodyEmph: (bodyId: string) => boolean }) {
   const t = report.thermal;
   if (!t) return null;
+  const many = Object.values(t.bodies).filter((b) => b.centre).length > LABELLED_MARKS;
   const maxDrift = Math.max(1e-300, ...Object.values(t.points).map((p) => Math.hypot(...p.driftUmPerK)));
   return (
     <g data-layer="thermal">
       {Object.entries(t.bodies).map(([id, b]) => {
         if (!b.centre) return null;
         const [x, y] = px(project(b.centre, view));
+        const strong = bodyEmph(id);
         return (
-          <g key={id} data-thermal-centre={id}>
+          <g key={id} data-thermal-centre={id} opacity={strong ? 1 : 0.25}>
             <circle cx={x} cy={y} r={7} fill="none" stroke={palette.thermal} strokeWidth={1.4} />
             <path d={`M${x - 10},${y} h20 M${x},${y - 10} v20`} stroke={palette.thermal} strokeWidth={1} />
             <circle cx={x} cy={y} r={2} fill={palette.thermal} />
-            <text x={x + 9} y={y + 14} fontSize={8.5} fill={palette.thermal}>{`TC ${id}`}</text>
+            {strong && !(many && bodyEmph("")) && <text x={x + 9} y={y + 14} fontSize={8.5} fill={palette.thermal}>{`TC ${id}`}</text>}
           </g>
         );
       })}
@@ -122,9 +134,17 @@ export function largestThreeSigmaUm(report: Report): number | null {
  * Each functional point, and its 3σ repeatability ellipse (projected), magnified so that the largest
  * 3σ semi-axis of the layout is `refPx` long on screen.
  */
-export function PointLayer({ report, layout, view, px, refPx }: LayerProps & { report: Report; layout: Layout; refPx: number }) {
+export function PointLayer({
+  report,
+  layout,
+  view,
+  px,
+  refPx,
+  bodyEmph,
+}: LayerProps & { report: Report; layout: Layout; refPx: number; bodyEmph: (bodyId: string) => boolean }) {
   const rep = report.repeatability;
   const refUm = largestThreeSigmaUm(report);
+  const many = layout.points.length > LABELLED_MARKS;
   return (
     <g data-layer="points">
       {layout.points.map((p) => {
@@ -153,14 +173,17 @@ export function PointLayer({ report, layout, view, px, refPx }: LayerProps & { r
             />
           );
         }
+        const strong = bodyEmph(p.body);
         return (
-          <g key={p.id} data-point={p.id}>
+          <g key={p.id} data-point={p.id} opacity={strong ? 1 : 0.25}>
             <path d={`M${x - 5},${y} h10 M${x},${y - 5} v10`} stroke={palette.ink} strokeWidth={1} />
             <rect x={x - 2.5} y={y - 2.5} width={5} height={5} fill="none" stroke={palette.ink} strokeWidth={0.8} transform={`rotate(45 ${x} ${y})`} />
             {ellipse}
-            <text x={x + 6} y={y + 12} fontSize={8.5} fill={palette.ink} fontStyle="italic">
-              {p.id}
-            </text>
+            {strong && !(many && bodyEmph("")) && (
+              <text x={x + 6} y={y + 12} fontSize={8.5} fill={palette.ink} fontStyle="italic">
+                {p.id}
+              </text>
+            )}
           </g>
         );
       })}

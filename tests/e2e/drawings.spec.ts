@@ -127,7 +127,7 @@ test("labels do not overlap on the breadboard, and a finding's views are fitted 
   expect(focused, `scale bar ${focused} on the finding against ${whole} for the whole plate`).toBeLessThan(whole);
 });
 
-test("one body filter narrows the drawings and the detail tables, and lives in the address", async ({ page }) => {
+test("one body filter narrows the drawings and the detail tables, and lives in the address", async ({ page }, info) => {
   // the breadboard on its three seats carrying a mirror mount on a 3-2-1 set of pads (two bodies; demo data)
   const board = JSON.parse(readFileSync(path.join("examples", "breadboard-three-seats.json"), "utf8"));
   const pad = (id: string, point: number[], normal: number[]) => ({ id, body: "mirror-mount", on: "breadboard", point, normal, sense: "bilateral" });
@@ -172,4 +172,16 @@ test("one body filter narrows the drawings and the detail tables, and lives in t
   await page.getByLabel("Show body").selectOption("");
   await expect(page).not.toHaveURL(/body=/);
   await expect(page.locator('svg[data-view] [data-emphasised="true"]')).toHaveCount(0);
+  // the filter and the narrowed drawings at desk and phone width (kept as artifacts), the filter inside the page
+  await page.getByLabel("Show body").selectOption("mirror-mount");
+  for (const [name, width] of [
+    ["desk", 1440],
+    ["phone", 390],
+  ] as const) {
+    await page.setViewportSize({ width, height: 900 });
+    await page.getByTestId("body-filter").scrollIntoViewIfNeeded();
+    const box = (await page.getByTestId("body-filter").boundingBox())!;
+    expect(box.x + box.width).toBeLessThanOrEqual(width);
+    await page.screenshot({ path: info.outputPath(`body-filter-${name}.png`) });
+  }
 });

@@ -6,6 +6,7 @@ import { convexHull, labelBox } from "@/components/layout-views/view-layers";
 import { runEngine } from "@/lib/engine";
 import { expandFlexures } from "@/lib/layout/flexures";
 import { example } from "../support/examples";
+import { generate, instrument } from "../support/instruments";
 
 const count = (html: string, attr: string) => (html.match(new RegExp(`${attr}="`, "g")) ?? []).length;
 
@@ -159,5 +160,28 @@ describe("LayoutDrawings", () => {
   it("motion labels read differently from contact ids", () => {
     const { html } = render("breadboard-four-feet");
     expect(html).toMatch(/data-motion-label="">↻ R3/);
+  });
+});
+
+describe("a crowded drawing (40 mounts on a bench, each with its thermal centre)", () => {
+  const layout = instrument(generate(40, "star", 77, 7));
+  const { report } = runEngine(layout);
+  const tcLabels = (html: string) => [...html.matchAll(/>TC (b\d+)<\/text>/g)].map((m) => m[1]);
+
+  it("draws every thermal centre but labels none of them when nothing is in focus", () => {
+    const html = renderToStaticMarkup(<LayoutDrawings layout={layout} report={report} />);
+    // the bench is of the base's steel: no thermal centre of its own (analysis.md §9)
+    const centres = Object.values(report.thermal!.bodies).filter((b) => b.centre).length;
+    expect(centres).toBe(39);
+    expect((html.match(/data-thermal-centre="/g) ?? []).length).toBe(4 * centres);
+    expect(tcLabels(html)).toEqual([]);
+  });
+
+  it("labels the centres of the bodies in focus and dims the rest", () => {
+    const contacts = layout.contacts.filter((c) => c.body === "b7").map((c) => c.id);
+    const html = renderToStaticMarkup(<LayoutDrawings layout={layout} report={report} emphasis={{ contacts }} />);
+    // b7's seats join it to the bench b0, both in focus; the bench has no centre, so b7's is labelled in each view
+    expect(tcLabels(html)).toEqual(["b7", "b7", "b7", "b7"]);
+    expect((html.match(/data-thermal-centre="b12" opacity="0.25"/g) ?? []).length).toBe(4);
   });
 });
