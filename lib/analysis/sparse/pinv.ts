@@ -1,6 +1,7 @@
 /**
  * u = (Aᵀ W A)⁺ w without a dense decomposition: the block Cholesky factor of Aᵀ W A + εI, the null
- * space projected out on both sides (so the answer is the minimum-norm one of the pseudo-inverse), and
+ * space projected out on both sides and from every product (so the answer is the minimum-norm one of the
+ * pseudo-inverse, also when the weights leave out rows and the operator's range is not the given one), and
  * iterative refinement, which removes the shift: each pass shrinks the error by ε / (μ + ε) ≤ 1/100 for
  * every eigenvalue μ above the rank threshold.
  * Written here because no npm package offers a sparse pseudo-inverse solve.
@@ -73,7 +74,7 @@ export class PinvSystem {
     let best = Infinity;
     let stall = 0;
     for (let it = 0; it < 500 && rz > 0; it++) {
-      const Ap = mulGram(this.R, this.w, p);
+      const Ap = this.project(mulGram(this.R, this.w, p));
       const pAp = dot(p, Ap);
       if (!(pAp > 0)) break;
       const alpha = rz / pAp;
@@ -96,7 +97,7 @@ export class PinvSystem {
     // refinement on the true residual (the recurrence's residual drifts from it at round-off)
     let prev = Infinity;
     for (let pass = 0; pass < 3; pass++) {
-      const Mx = mulGram(this.R, this.w, x);
+      const Mx = this.project(mulGram(this.R, this.w, x));
       const res = new Float64Array(n);
       for (let i = 0; i < n; i++) res[i] = b[i] - Mx[i];
       const rn = norm(res);

@@ -4,11 +4,15 @@
  * depends on the rows after it; the rest (the lexicographically last row basis of A) is found by one sweep
  * over the rows in reverse sorted order, each rotated into a growing triangular factor (row-wise Givens QR
  * in the body graph's elimination order, George and Heath's method). A pivot's state is then the unique
- * balance λ_p = 1, A_Cᵀ λ_C = −a_pᵀ on the basis rows C: among the basis rows near the pivot when the loop
- * closes there (a small dense least-squares problem, ml-matrix), else by refinement with the sparse factor.
+ * balance λ_p = 1, A_Cᵀ λ_C = −a_pᵀ (modulo the free motions) on the basis rows C: among the basis rows near
+ * the pivot when the loop closes there (a small dense least-squares problem, ml-matrix), else by conjugate
+ * gradients preconditioned with the sparse factor. Rows are independent "modulo the free motions" (§2's left
+ * null space is that of A with its numerical null space taken out): the basis in A is thinned by the rows
+ * that stand apart only along a free motion whose singular value is small but not zero.
  * Written here because no npm package offers a row-sequential sparse QR.
  */
 import { Matrix, solve } from "ml-matrix";
+import { svdRight } from "../linalg";
 import { MAX_SELF_STRESS_LISTED, type SelfStressState } from "../constraint";
 import { PinvSystem } from "./pinv";
 import { addRowT, rowDot, type SparseRows } from "./rows";
@@ -17,15 +21,21 @@ import type { LowSpectrum } from "./spectrum";
 type SparseVec = Map<number, Float64Array>;
 
 /** Rows of A that form the lexicographically last row basis (by the given order), at threshold tau. */
-export function lastRowBasis(R: SparseRows, sorted: number[], order: Int32Array, tau: number, rank: number): boolean[] {
+export function lastRowBasis(
+  R: SparseRows,
+  sorted: number[],
+  order: Int32Array,
+  tau: number,
+  limit: number,
+): { inBasis: boolean[]; slots: (SparseVec | null)[]; pos: Int32Array } {
   const N = R.N;
   const pos = new Int32Array(N);
   order.forEach((b, p) => (pos[b] = p));
   const slots: (SparseVec | null)[] = new Array(6 * N).fill(null);
   const inBasis = new Array<boolean>(R.m).fill(false);
   let accepted = 0;
-  // once `rank` rows are in, every earlier row depends on them (the rank is decided by the singular values)
-  for (let t = sorted.length - 1; t >= 0 && accepted < rank; t--) {
+  // once `limit` rows are in, every earlier row depends on them
+  for (let t = sorted.length - 1; t >= 0 && accepted < limit; t--) {
     const i = sorted[t];
     const x: SparseVec = new Map();
     const put = (b: number, sign: number) => {
@@ -43,6 +53,7 @@ export function lastRowBasis(R: SparseRows, sorted: number[], order: Int32Array,
       return Math.sqrt(s);
     };
     let placed = false;
+    let keep = 1;
     // visit x's blocks in increasing elimination step; rotations only add later blocks
     while (x.size > 0 && !placed) {
       let p = Infinity;
@@ -60,6 +71,8 @@ export function lastRowBasis(R: SparseRows, sorted: number[], order: Int32Array,
           const h = Math.hypot(a, xv);
           const cs = a / h;
           const sn = xv / h;
+          // x is now keep · (the original row) + a combination of the original slot rows
+          keep *= Math.abs(cs);
           const keys = new Set<number>([...r.keys(), ...x.keys()]);
           for (const q of keys) {
             let rq = r.get(q);
@@ -75,7 +88,9 @@ export function lastRowBasis(R: SparseRows, sorted: number[], order: Int32Array,
           }
           blk[j] = 0;
         } else {
-          if (rowNorm() <= tau) break;
+          // dependent when even ‖x‖ / keep, a bound on the original row's distance to the slot rows' span, is
+          // under the threshold (‖x‖ alone is not: a rotation against a small pivot moves the row into the slot)
+          if (rowNorm() <= tau * keep) break;
           if (Math.abs(xv) <= 1e-10 * rowNorm()) {
             blk[j] = 0;
             continue;
@@ -89,24 +104,171 @@ export function lastRowBasis(R: SparseRows, sorted: number[], order: Int32Array,
         }
       }
       if (placed) break;
-      if (rowNorm() <= tau) break;
+      if (rowNorm() <= tau * keep) break;
       x.delete(p);
     }
   }
-  return inBasis;
+  return { inBasis, slots, pos };
+}
+
+/**
+ * The greedy row basis above is taken in A itself, where a direction just under the rank threshold (σ small
+ * but not zero) still separates rows; the self-stress space of §2 is the left null space of A modulo its
+ * numerical null space V₂ (λ is a state when Aᵀλ ∈ span V₂). The basis modulo V₂ is a subset of the basis in
+ * A (a quotient's greedy basis lies inside the original's), short by e = |B| − rank rows: those are the
+ * first rows, in sorted order, of the e combinations μ with A_Bᵀμ ∈ span V₂. They are found with the
+ * triangular factor of the basis rows (semi-normal equations RᵀR y = V₂d, μ = A_B y, corrected while the residual falls),
+ * d from the small dense SVD of what V₂'s columns leave outside range(Rᵀ). Drops them from `inBasis`.
+ */
+function quotientBasis(
+  R: SparseRows,
+  sorted: number[],
+  found: { inBasis: boolean[]; slots: (SparseVec | null)[]; pos: Int32Array },
+  nullBasis: Float64Array[],
+  excess: number,
+): void {
+  const { inBasis, slots, pos } = found;
+  const n = R.n;
+  const cols: number[] = [];
+  slots.forEach((r, c) => r && cols.push(c));
+  const get = (r: SparseVec, c: number) => r.get(Math.floor(c / 6))?.[c % 6] ?? 0;
+  // elimination coordinates: column 6·pos[b] + j is body b's coordinate j
+  const toElim = (v: ArrayLike<number>) => {
+    const out = new Float64Array(n);
+    for (let b = 0; b < R.N; b++) for (let j = 0; j < 6; j++) out[6 * pos[b] + j] = v[6 * b + j];
+    return out;
+  };
+  const fromElim = (v: ArrayLike<number>) => {
+    const out = new Float64Array(n);
+    for (let b = 0; b < R.N; b++) for (let j = 0; j < 6; j++) out[6 * b + j] = v[6 * pos[b] + j];
+    return out;
+  };
+  /** Rᵀ t = z on the slot columns (forward); returns t and what is left on the other columns */
+  const forward = (z: Float64Array) => {
+    const left = Float64Array.from(z);
+    const t = new Float64Array(n);
+    for (const c of cols) {
+      const r = slots[c]!;
+      const tc = left[c] / get(r, c);
+      t[c] = tc;
+      for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0) left[6 * q + j] -= blk[j] * tc;
+      left[c] = 0;
+    }
+    return { t, left };
+  };
+  /** R y = t (back substitution), y zero off the slot columns */
+  const backward = (t: Float64Array) => {
+    const y = new Float64Array(n);
+    for (let k = cols.length - 1; k >= 0; k--) {
+      const c = cols[k];
+      const r = slots[c]!;
+      let sum = t[c];
+      for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0 && 6 * q + j !== c) sum -= blk[j] * y[6 * q + j];
+      y[c] = sum / get(r, c);
+    }
+    return y;
+  };
+  const basisRows = sorted.filter((i) => inBasis[i]);
+  /** μ = A_B y for y in elimination coordinates */
+  const muOf = (yElim: Float64Array) => {
+    const y = fromElim(yElim);
+    return basisRows.map((i) => rowDot(R, i, y));
+  };
+  // what each null vector leaves outside range(Rᵀ) = range(A_Bᵀ)
+  const parts = nullBasis.map((z) => forward(toElim(z)));
+  const nonSlot: number[] = [];
+  for (let c = 0; c < n; c++) if (!slots[c]) nonSlot.push(c);
+  const L = new Matrix(Math.max(nonSlot.length, nullBasis.length), nullBasis.length);
+  parts.forEach(({ left }, j) => nonSlot.forEach((c, k) => L.set(k, j, left[c])));
+  const { V } = svdRight(L);
+  const mus: number[][] = [];
+  for (let e = 0; e < excess; e++) {
+    // the combinations d that R reaches: the right singular vectors of the smallest singular values
+    const d = V.getColumn(nullBasis.length - 1 - e);
+    const target = new Float64Array(n);
+    nullBasis.forEach((z, j) => {
+      for (let i = 0; i < n; i++) target[i] += d[j] * z[i];
+    });
+    const targetElim = toElim(target);
+    let mu = muOf(backward(forward(targetElim).t));
+    // corrected steps: the residual of A_Bᵀμ = V₂d through the same factor, while it falls
+    let best = Infinity;
+    for (let pass = 0; pass < 6; pass++) {
+      const back = new Float64Array(n);
+      basisRows.forEach((i, k) => addRowT(R, i, mu[k], back));
+      const resid = toElim(back.map((v, i) => target[i] - v));
+      const rn = Math.hypot(...resid);
+      if (!(rn < 0.5 * best) || rn === 0) break;
+      best = rn;
+      const fix = muOf(backward(forward(resid).t));
+      mu = mu.map((v, k) => v + fix[k]);
+    }
+    mus.push(mu);
+  }
+  // the first rows, in sorted order, of the span of the μ: Gram–Schmidt on the rows of an orthonormal basis
+  const Y = orthonormalColumns(mus, basisRows.length);
+  const kept: number[][] = [];
+  let dropped = 0;
+  for (let k = 0; k < basisRows.length && dropped < excess; k++) {
+    const res = Y.map((col) => col[k]);
+    for (let pass = 0; pass < 2; pass++)
+      for (const b of kept) {
+        let dd = 0;
+        for (let c = 0; c < res.length; c++) dd += b[c] * res[c];
+        for (let c = 0; c < res.length; c++) res[c] -= dd * b[c];
+      }
+    const len = Math.hypot(...res);
+    if (len > 1e-8) {
+      kept.push(res.map((v) => v / len));
+      inBasis[basisRows[k]] = false;
+      dropped++;
+    }
+  }
+}
+
+/** An orthonormal basis (modified Gram–Schmidt, twice) of the given vectors of length `len`. */
+function orthonormalColumns(vs: number[][], len: number): number[][] {
+  const out: number[][] = [];
+  for (const v0 of vs) {
+    const v = v0.slice(0, len);
+    for (let pass = 0; pass < 2; pass++)
+      for (const q of out) {
+        let d = 0;
+        for (let i = 0; i < len; i++) d += q[i] * v[i];
+        for (let i = 0; i < len; i++) v[i] -= d * q[i];
+      }
+    const l = Math.hypot(...v);
+    if (l > 0) out.push(v.map((x) => x / l));
+  }
+  return out;
 }
 
 /**
  * Canonical states: pivots are the rows outside the basis, in sorted order; the state of pivot p has
- * λ_p = 1, zero on every other pivot, and λ_C = −A_C (A_Cᵀ A_C)⁺ a_pᵀ on the basis rows.
+ * λ_p = 1, zero on every other pivot, and on the basis rows the λ_C with P₁(a_pᵀ + A_Cᵀλ_C) = 0 (P₁ projecting
+ * out the free motions: the state balances up to a motion the layout does not constrain, as the left singular
+ * vectors of the dense path do).
  */
 export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spectrum: LowSpectrum, order: Int32Array, tolerance: number): SelfStressState[] {
   const sorted = contactIds.map((id, i) => [id, i] as const).sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
   const idx = sorted.map(([, i]) => i);
-  const inBasis = lastRowBasis(R, idx, order, tolerance * spectrum.sigmaMax, spectrum.rank);
+  const found = lastRowBasis(R, idx, order, tolerance * spectrum.sigmaMax, R.n);
+  const { inBasis } = found;
+  const excess = inBasis.filter(Boolean).length - spectrum.rank;
+  if (excess > 0) {
+    // the factor above also absorbed the rows it rejected: the semi-normal equations need the basis rows' own
+    const own = lastRowBasis(
+      R,
+      idx.filter((i) => inBasis[i]),
+      order,
+      0,
+      R.n,
+    );
+    quotientBasis(R, idx, { inBasis, slots: own.slots, pos: own.pos }, spectrum.nullBasis, excess);
+  }
   const pivots = idx.filter((i) => !inBasis[i]).slice(0, MAX_SELF_STRESS_LISTED);
   if (pivots.length === 0) return [];
-  // A_C has the rank of A, so its null space is A's
+  // A_C has the rank of A: its operator, with A's free motions projected out, is invertible on the rest
   const w = inBasis.map((b) => (b ? 1 : 0));
   const sys = new PinvSystem(R, w, spectrum, tolerance);
   const states: SelfStressState[] = [];
@@ -125,27 +287,24 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
       states.push(stateOf(near, p));
       continue;
     }
-    // λ_C = −A_C (A_CᵀA_C)⁺ a_p by refinement on the balance itself: start from λ_p = 1 alone, then
-    // λ_C −= A_C step(Aᵀλ) while the residual falls. Every update lies in range(A_C), so the fixed point is
-    // the minimum-norm (canonical) state; each step shrinks the error by ε/(μ+ε) ≤ 1/100
+    // λ_C = −A_C (A_CᵀA_C)⁺ a_p, the pseudo-inverse by preconditioned conjugate gradients (A_C can be far
+    // worse conditioned than A, where a stationary refinement with the shifted factor crawls or drifts), then
+    // refinement passes on the balance itself while its residual falls. Every update lies in range(A_C), so
+    // the result is the unique state on the basis rows.
     const lam = new Float64Array(R.m);
     lam[p] = 1;
-    res.fill(0);
-    addRowT(R, p, 1, res);
-    const aNorm = norm(res);
     let best = Infinity;
-    for (let step = 0; step < 60; step++) {
-      if (step > 0) {
-        res.fill(0);
-        addRowT(R, p, 1, res);
-        for (const i of basis) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
-      }
-      const rn = norm(res);
-      // stop at round-off: the residual no longer halves
-      if (rn <= 1e-16 * aNorm || (step > 1 && rn > 0.5 * best)) break;
-      best = Math.min(best, rn);
-      const dy = sys.step(res);
-      for (const i of basis) lam[i] -= rowDot(R, i, dy);
+    let aNorm = 0;
+    for (let pass = 0; pass < 4; pass++) {
+      res.fill(0);
+      addRowT(R, p, 1, res);
+      if (pass === 0) aNorm = norm(res);
+      for (const i of basis) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
+      const rn = norm(sys.project(res));
+      if (rn <= 1e-15 * aNorm || rn > 0.5 * best) break;
+      best = rn;
+      const y = sys.apply(res);
+      for (const i of basis) lam[i] -= rowDot(R, i, y);
     }
     states.push(stateOf(lam, p));
   }
