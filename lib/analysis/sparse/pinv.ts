@@ -61,7 +61,7 @@ export class PinvSystem {
    * even when the factor needed a larger shift (stationary refinement would crawl at ε/(μ + ε) a pass).
    * Finished by refinement passes on the true residual.
    */
-  apply(rhs: ArrayLike<number>): Float64Array {
+  apply(rhs: ArrayLike<number>, patience = 3): Float64Array {
     const b = this.project(rhs);
     const n = b.length;
     const bNorm = norm(b);
@@ -84,10 +84,12 @@ export class PinvSystem {
       }
       const rn = norm(r);
       if (rn <= 1e-16 * bNorm) break;
-      // stop at round-off: the residual has not halved in three iterations
+      // stop at round-off: the residual has not halved in three iterations (`patience` while it is above 1e-10
+      // of the right-hand side: on an ill-conditioned operator, such as the basis rows of a self-stress solve,
+      // the residual of conjugate gradients can stall for a while before it falls again)
       stall = rn > 0.5 * best ? stall + 1 : 0;
       best = Math.min(best, rn);
-      if (stall >= 3) break;
+      if (stall >= (rn <= 1e-10 * bNorm ? 3 : patience)) break;
       z = this.step(r);
       const rzNew = dot(r, z);
       const beta = rzNew / rz;

@@ -303,7 +303,8 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
       const rn = norm(sys.project(res));
       if (rn <= 1e-15 * aNorm || rn > 0.5 * best) break;
       best = rn;
-      const y = sys.apply(res);
+      // patient conjugate gradients: on ill-conditioned basis rows their residual stalls before it falls
+      const y = sys.apply(res, 10);
       for (const i of basis) lam[i] -= rowDot(R, i, y);
     }
     states.push(stateOf(lam, p));
