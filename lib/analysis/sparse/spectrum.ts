@@ -141,7 +141,7 @@ export function sigmaMax(R: SparseRows, w: ArrayLike<number>): number {
     const b = normv(z);
     if (j % 4 === 3 || b < 1e-14 * Math.max(...alpha.map(Math.abs)) || j === steps - 1) {
       const top = largestTridiagonalEigenvalue(alpha, beta);
-      const settled = Math.abs(top - theta) <= 1e-15 * Math.abs(top);
+      const settled = Math.abs(top - theta) <= 1e-13 * Math.abs(top);
       theta = top;
       if (settled || b < 1e-14 * Math.abs(top)) break;
     }
