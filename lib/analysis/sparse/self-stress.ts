@@ -5,13 +5,14 @@
  * over the rows in reverse sorted order, each rotated into a growing triangular factor (row-wise Givens QR
  * in the body graph's elimination order, George and Heath's method). A pivot's state is then the unique
  * balance λ_p = 1, A_Cᵀ λ_C = −a_pᵀ (modulo the free motions) on the basis rows C: among the basis rows near
- * the pivot when the loop closes there (a small dense least-squares problem, ml-matrix), else by conjugate
- * gradients preconditioned with the sparse factor. Rows are independent "modulo the free motions" (§2's left
+ * the pivot when the loop closes there (a small dense least-squares problem, ml-matrix), else through the basis
+ * rows' own triangular factor (corrected semi-normal equations), with conjugate gradients preconditioned by the
+ * block Cholesky factor as the fallback. Rows are independent "modulo the free motions" (§2's left
  * null space is that of A with its numerical null space taken out): the basis in A is thinned by the rows
  * that stand apart only along a free motion whose singular value is small but not zero.
  * Written here because no npm package offers a row-sequential sparse QR.
  */
-import { Matrix, solve } from "ml-matrix";
+import { Matrix, inverse, solve } from "ml-matrix";
 import { svdRight } from "../linalg";
 import { MAX_SELF_STRESS_LISTED, type SelfStressState } from "../constraint";
 import { PinvSystem } from "./pinv";
@@ -129,45 +130,7 @@ function quotientBasis(
 ): void {
   const { inBasis, slots, pos } = found;
   const n = R.n;
-  const cols: number[] = [];
-  slots.forEach((r, c) => r && cols.push(c));
-  const get = (r: SparseVec, c: number) => r.get(Math.floor(c / 6))?.[c % 6] ?? 0;
-  // elimination coordinates: column 6·pos[b] + j is body b's coordinate j
-  const toElim = (v: ArrayLike<number>) => {
-    const out = new Float64Array(n);
-    for (let b = 0; b < R.N; b++) for (let j = 0; j < 6; j++) out[6 * pos[b] + j] = v[6 * b + j];
-    return out;
-  };
-  const fromElim = (v: ArrayLike<number>) => {
-    const out = new Float64Array(n);
-    for (let b = 0; b < R.N; b++) for (let j = 0; j < 6; j++) out[6 * b + j] = v[6 * pos[b] + j];
-    return out;
-  };
-  /** Rᵀ t = z on the slot columns (forward); returns t and what is left on the other columns */
-  const forward = (z: Float64Array) => {
-    const left = Float64Array.from(z);
-    const t = new Float64Array(n);
-    for (const c of cols) {
-      const r = slots[c]!;
-      const tc = left[c] / get(r, c);
-      t[c] = tc;
-      for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0) left[6 * q + j] -= blk[j] * tc;
-      left[c] = 0;
-    }
-    return { t, left };
-  };
-  /** R y = t (back substitution), y zero off the slot columns */
-  const backward = (t: Float64Array) => {
-    const y = new Float64Array(n);
-    for (let k = cols.length - 1; k >= 0; k--) {
-      const c = cols[k];
-      const r = slots[c]!;
-      let sum = t[c];
-      for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0 && 6 * q + j !== c) sum -= blk[j] * y[6 * q + j];
-      y[c] = sum / get(r, c);
-    }
-    return y;
-  };
+  const { toElim, fromElim, forward, backward } = triangular(R, slots, pos);
   const basisRows = sorted.filter((i) => inBasis[i]);
   /** μ = A_B y for y in elimination coordinates */
   const muOf = (yElim: Float64Array) => {
@@ -226,6 +189,89 @@ function quotientBasis(
   }
 }
 
+/**
+ * Solves for the state coefficients on the basis rows C directly: λ_C with A_Cᵀ λ_C = rhs + V₂ d (the balance
+ * up to a free motion), through the row QR factor of C alone (A_CᵀA_C = RᵀR): Rᵀt = rhs + V₂d forward on R's
+ * columns, d chosen so nothing is left on the free columns (a small dense solve), R y = t back, λ_C = A_C y.
+ * Null when the factor of C does not take every row of C (the caller falls back to conjugate gradients).
+ */
+function stateSolver(R: SparseRows, basis: number[], order: Int32Array, nullBasis: Float64Array[]): ((rhs: Float64Array) => Float64Array) | null {
+  const own = lastRowBasis(R, basis, order, 0, R.n);
+  if (own.inBasis.filter(Boolean).length !== basis.length) return null;
+  const F = triangular(R, own.slots, own.pos);
+  const free: number[] = [];
+  for (let c = 0; c < R.n; c++) if (!own.slots[c]) free.push(c);
+  if (free.length !== nullBasis.length) return null;
+  const parts = nullBasis.map((z) => F.forward(F.toElim(z)));
+  const L = new Matrix(free.length, free.length);
+  parts.forEach(({ left }, j) => free.forEach((c, k) => L.set(k, j, left[c])));
+  let Linv: Matrix | null = null;
+  if (free.length > 0) {
+    try {
+      Linv = inverse(L);
+    } catch {
+      return null;
+    }
+  }
+  return (rhs) => {
+    const g = F.forward(F.toElim(rhs));
+    if (Linv) {
+      const d = Linv.mmul(Matrix.columnVector(free.map((c) => -g.left[c]))).getColumn(0);
+      parts.forEach(({ t }, j) => {
+        for (let i = 0; i < t.length; i++) g.t[i] += d[j] * t[i];
+      });
+    }
+    const y = F.fromElim(F.backward(g.t));
+    return Float64Array.from(basis, (i) => rowDot(R, i, y));
+  };
+}
+
+/** Forward and back substitution with a row QR factor (slot rows by column, in elimination coordinates). */
+function triangular(R: SparseRows, slots: (SparseVec | null)[], pos: Int32Array) {
+  const n = R.n;
+  const cols: number[] = [];
+  slots.forEach((r, c) => r && cols.push(c));
+  const get = (r: SparseVec, c: number) => r.get(Math.floor(c / 6))?.[c % 6] ?? 0;
+  return {
+    // elimination coordinates: column 6·pos[b] + j is body b's coordinate j
+    toElim(v: ArrayLike<number>) {
+      const out = new Float64Array(n);
+      for (let b = 0; b < R.N; b++) for (let j = 0; j < 6; j++) out[6 * pos[b] + j] = v[6 * b + j];
+      return out;
+    },
+    fromElim(v: ArrayLike<number>) {
+      const out = new Float64Array(n);
+      for (let b = 0; b < R.N; b++) for (let j = 0; j < 6; j++) out[6 * b + j] = v[6 * pos[b] + j];
+      return out;
+    },
+    /** Rᵀ t = z on the slot columns (forward); t and what is left on the other columns */
+    forward(z: Float64Array) {
+      const left = Float64Array.from(z);
+      const t = new Float64Array(n);
+      for (const c of cols) {
+        const r = slots[c]!;
+        const tc = left[c] / get(r, c);
+        t[c] = tc;
+        for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0) left[6 * q + j] -= blk[j] * tc;
+        left[c] = 0;
+      }
+      return { t, left };
+    },
+    /** R y = t (back substitution), y zero off the slot columns */
+    backward(t: Float64Array) {
+      const y = new Float64Array(n);
+      for (let k = cols.length - 1; k >= 0; k--) {
+        const c = cols[k];
+        const r = slots[c]!;
+        let sum = t[c];
+        for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0 && 6 * q + j !== c) sum -= blk[j] * y[6 * q + j];
+        y[c] = sum / get(r, c);
+      }
+      return y;
+    },
+  };
+}
+
 /** An orthonormal basis (modified Gram–Schmidt, twice) of the given vectors of length `len`. */
 function orthonormalColumns(vs: number[][], len: number): number[][] {
   const out: number[][] = [];
@@ -268,9 +314,6 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
   }
   const pivots = idx.filter((i) => !inBasis[i]).slice(0, MAX_SELF_STRESS_LISTED);
   if (pivots.length === 0) return [];
-  // A_C has the rank of A: its operator, with A's free motions projected out, is invertible on the rest
-  const w = inBasis.map((b) => (b ? 1 : 0));
-  const sys = new PinvSystem(R, w, spectrum, tolerance);
   const states: SelfStressState[] = [];
   const basis = idx.filter((i) => inBasis[i]);
   const norm = (v: Float64Array) => {
@@ -278,8 +321,26 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     for (let i = 0; i < v.length; i++) t += v[i] * v[i];
     return Math.sqrt(t);
   };
+  /** v minus its part along the free motions (P₁ v) */
+  const project = (v: Float64Array) => {
+    const out = Float64Array.from(v);
+    for (const z of spectrum.nullBasis) {
+      let d = 0;
+      for (let i = 0; i < out.length; i++) d += z[i] * out[i];
+      if (d !== 0) for (let i = 0; i < out.length; i++) out[i] -= d * z[i];
+    }
+    return out;
+  };
+  /** P₁(a_p + A_Cᵀ λ_C) */
+  const balance = (lam: Float64Array, p: number) => {
+    const res = new Float64Array(R.n);
+    addRowT(R, p, 1, res);
+    for (const i of basis) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
+    return project(res);
+  };
   const local = localSolver(R, basis);
-  const res = new Float64Array(R.n);
+  let direct: ((rhs: Float64Array) => Float64Array) | null | undefined;
+  let sys: PinvSystem | undefined;
   for (const p of pivots) {
     // most loops close between a body and its neighbour: solved there, exactly, when they do
     const near = local(p);
@@ -287,27 +348,52 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
       states.push(stateOf(near, p));
       continue;
     }
-    // λ_C = −A_C (A_CᵀA_C)⁺ a_p, the pseudo-inverse by preconditioned conjugate gradients (A_C can be far
-    // worse conditioned than A, where a stationary refinement with the shifted factor crawls or drifts), then
-    // refinement passes on the balance itself while its residual falls. Every update lies in range(A_C), so
-    // the result is the unique state on the basis rows.
-    const lam = new Float64Array(R.m);
-    lam[p] = 1;
-    let best = Infinity;
-    let aNorm = 0;
-    for (let pass = 0; pass < 4; pass++) {
-      res.fill(0);
-      addRowT(R, p, 1, res);
-      if (pass === 0) aNorm = norm(res);
-      for (const i of basis) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
-      const rn = norm(sys.project(res));
-      if (rn <= 1e-15 * aNorm || rn > 0.5 * best) break;
-      best = rn;
-      // patient conjugate gradients: on ill-conditioned basis rows their residual stalls before it falls
-      const y = sys.apply(res, 10);
-      for (const i of basis) lam[i] -= rowDot(R, i, y);
+    const a = new Float64Array(R.n);
+    addRowT(R, p, 1, a);
+    const aNorm = norm(a);
+    // first by the basis rows' own triangular factor (corrected semi-normal equations), refined while the
+    // balance falls; accepted at 1e-10 of the pivot's row
+    direct ??= stateSolver(R, basis, order, spectrum.nullBasis);
+    let lam: Float64Array | null = null;
+    let lamRes = Infinity;
+    if (direct) {
+      const x = new Float64Array(R.m);
+      x[p] = 1;
+      let res = a;
+      for (let pass = 0; pass < 4; pass++) {
+        const dl = direct(res.map((v) => -v));
+        basis.forEach((i, k) => (x[i] += dl[k]));
+        const rn = norm((res = balance(x, p)));
+        if (!(rn < 0.5 * lamRes)) break;
+        lamRes = rn;
+        lam = Float64Array.from(x);
+        if (rn <= 1e-15 * aNorm) break;
+      }
     }
-    states.push(stateOf(lam, p));
+    if (!lam || !(lamRes <= 1e-10 * aNorm)) {
+      // else λ_C = −A_C (A_CᵀA_C)⁺ a_p, the pseudo-inverse by preconditioned conjugate gradients (patient: on
+      // ill-conditioned basis rows their residual stalls before it falls), refined while the balance falls.
+      // A_C has the rank of A: its operator, with A's free motions projected out, is invertible on the rest
+      sys ??= new PinvSystem(
+        R,
+        inBasis.map((b) => (b ? 1 : 0)),
+        spectrum,
+        tolerance,
+      );
+      const x = new Float64Array(R.m);
+      x[p] = 1;
+      let best = Infinity;
+      for (let pass = 0; pass < 4; pass++) {
+        const res = balance(x, p);
+        const rn = norm(res);
+        if (rn < lamRes) [lam, lamRes] = [Float64Array.from(x), rn];
+        if (rn <= 1e-15 * aNorm || rn > 0.5 * best) break;
+        best = rn;
+        const y = sys.apply(res, 10);
+        for (const i of basis) x[i] -= rowDot(R, i, y);
+      }
+    }
+    states.push(stateOf(lam!, p));
   }
   return states;
 
