@@ -195,8 +195,8 @@ function quotientBasis(
  * columns, d chosen so nothing is left on the free columns (a small dense solve), R y = t back, λ_C = A_C y.
  * Null when the factor of C does not take every row of C (the caller falls back to conjugate gradients).
  */
-function stateSolver(R: SparseRows, basis: number[], order: Int32Array, nullBasis: Float64Array[]): ((rhs: Float64Array) => Float64Array) | null {
-  const own = lastRowBasis(R, basis, order, 0, R.n);
+function stateSolver(R: SparseRows, basis: number[], order: Int32Array, nullBasis: Float64Array[], tau: number): ((rhs: Float64Array) => Float64Array) | null {
+  const own = lastRowBasis(R, basis, order, tau, R.n);
   if (own.inBasis.filter(Boolean).length !== basis.length) return null;
   const F = triangular(R, own.slots, own.pos);
   const free: number[] = [];
@@ -226,12 +226,32 @@ function stateSolver(R: SparseRows, basis: number[], order: Int32Array, nullBasi
   };
 }
 
-/** Forward and back substitution with a row QR factor (slot rows by column, in elimination coordinates). */
+/**
+ * Forward and back substitution with a row QR factor (slot rows by column, in elimination coordinates), the
+ * rows copied once into flat arrays (column index and value, diagonal first) for the repeated solves.
+ */
 function triangular(R: SparseRows, slots: (SparseVec | null)[], pos: Int32Array) {
   const n = R.n;
   const cols: number[] = [];
   slots.forEach((r, c) => r && cols.push(c));
-  const get = (r: SparseVec, c: number) => r.get(Math.floor(c / 6))?.[c % 6] ?? 0;
+  const ptr = new Int32Array(cols.length + 1);
+  let nnz = 0;
+  for (const c of cols) for (const blk of slots[c]!.values()) for (let j = 0; j < 6; j++) if (blk[j] !== 0) nnz++;
+  const at = new Int32Array(nnz);
+  const val = new Float64Array(nnz);
+  let e = 0;
+  cols.forEach((c, k) => {
+    const r = slots[c]!;
+    at[e] = c;
+    val[e++] = r.get(Math.floor(c / 6))![c % 6];
+    for (const [q, blk] of r)
+      for (let j = 0; j < 6; j++)
+        if (blk[j] !== 0 && 6 * q + j !== c) {
+          at[e] = 6 * q + j;
+          val[e++] = blk[j];
+        }
+    ptr[k + 1] = e;
+  });
   return {
     // elimination coordinates: column 6·pos[b] + j is body b's coordinate j
     toElim(v: ArrayLike<number>) {
@@ -248,12 +268,12 @@ function triangular(R: SparseRows, slots: (SparseVec | null)[], pos: Int32Array)
     forward(z: Float64Array) {
       const left = Float64Array.from(z);
       const t = new Float64Array(n);
-      for (const c of cols) {
-        const r = slots[c]!;
-        const tc = left[c] / get(r, c);
+      for (let k = 0; k < cols.length; k++) {
+        const c = cols[k];
+        const tc = left[c] / val[ptr[k]];
         t[c] = tc;
-        for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0) left[6 * q + j] -= blk[j] * tc;
         left[c] = 0;
+        for (let i = ptr[k] + 1; i < ptr[k + 1]; i++) left[at[i]] -= val[i] * tc;
       }
       return { t, left };
     },
@@ -261,11 +281,9 @@ function triangular(R: SparseRows, slots: (SparseVec | null)[], pos: Int32Array)
     backward(t: Float64Array) {
       const y = new Float64Array(n);
       for (let k = cols.length - 1; k >= 0; k--) {
-        const c = cols[k];
-        const r = slots[c]!;
-        let sum = t[c];
-        for (const [q, blk] of r) for (let j = 0; j < 6; j++) if (blk[j] !== 0 && 6 * q + j !== c) sum -= blk[j] * y[6 * q + j];
-        y[c] = sum / get(r, c);
+        let sum = t[cols[k]];
+        for (let i = ptr[k] + 1; i < ptr[k + 1]; i++) sum -= val[i] * y[at[i]];
+        y[cols[k]] = sum / val[ptr[k]];
       }
       return y;
     },
@@ -341,6 +359,7 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
   const local = localSolver(R, basis);
   let direct: ((rhs: Float64Array) => Float64Array) | null | undefined;
   let sys: PinvSystem | undefined;
+  let fruitless = 0;
   for (const p of pivots) {
     // most loops close between a body and its neighbour: solved there, exactly, when they do
     const near = local(p);
@@ -352,28 +371,34 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     addRowT(R, p, 1, a);
     const aNorm = norm(a);
     // first by the basis rows' own triangular factor (corrected semi-normal equations), refined while the
-    // balance falls; accepted at 1e-10 of the pivot's row
-    direct ??= stateSolver(R, basis, order, spectrum.nullBasis);
-    let lam: Float64Array | null = null;
-    let lamRes = Infinity;
+    // balance falls; accepted at 1e-8 of the pivot's row (on ill-conditioned basis rows the semi-normal
+    // equations stop there, and conjugate gradients rarely do better)
+    // (built once: null, when the factor of C leaves a row out, stays null)
+    if (direct === undefined) direct = stateSolver(R, basis, order, spectrum.nullBasis, tolerance * spectrum.sigmaMax);
+    // the best so far: λ_p = 1 alone to begin with
+    let lam = new Float64Array(R.m);
+    lam[p] = 1;
+    let lamRes = norm(balance(lam, p));
     if (direct) {
       const x = new Float64Array(R.m);
       x[p] = 1;
       let res = a;
+      let best = Infinity;
       for (let pass = 0; pass < 4; pass++) {
         const dl = direct(res.map((v) => -v));
         basis.forEach((i, k) => (x[i] += dl[k]));
         const rn = norm((res = balance(x, p)));
-        if (!(rn < 0.5 * lamRes)) break;
-        lamRes = rn;
-        lam = Float64Array.from(x);
-        if (rn <= 1e-15 * aNorm) break;
+        if (rn < lamRes) [lam, lamRes] = [Float64Array.from(x), rn];
+        if (!(rn < 0.5 * best) || rn <= 1e-15 * aNorm) break;
+        best = rn;
       }
     }
-    if (!lam || !(lamRes <= 1e-10 * aNorm)) {
+    if (!(lamRes <= 1e-8 * aNorm) && fruitless < 5) {
       // else λ_C = −A_C (A_CᵀA_C)⁺ a_p, the pseudo-inverse by preconditioned conjugate gradients (patient: on
       // ill-conditioned basis rows their residual stalls before it falls), refined while the balance falls.
-      // A_C has the rank of A: its operator, with A's free motions projected out, is invertible on the rest
+      // A_C has the rank of A: its operator, with A's free motions projected out, is invertible on the rest.
+      // Once five of these have failed too, the canonical form of this layout is numerically meaningless
+      // (its pivots are a round-off decision): the remaining states keep the direct result.
       sys ??= new PinvSystem(
         R,
         inBasis.map((b) => (b ? 1 : 0)),
@@ -392,8 +417,9 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
         const y = sys.apply(res, 10);
         for (const i of basis) x[i] -= rowDot(R, i, y);
       }
+      if (!(lamRes <= 1e-8 * aNorm)) fruitless++;
     }
-    states.push(stateOf(lam!, p));
+    states.push(stateOf(lam, p));
   }
   return states;
 
