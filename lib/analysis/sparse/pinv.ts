@@ -10,6 +10,17 @@ import { mulGram, type SparseRows } from "./rows";
 import { shiftedFactor, type LowSpectrum } from "./spectrum";
 import { solveFactor, type BlockFactor } from "./cholesky";
 
+/** v minus its part along an orthonormal set of vectors */
+export function projectOut(basis: Float64Array[], v: ArrayLike<number>): Float64Array<ArrayBuffer> {
+  const out = Float64Array.from(v);
+  for (const z of basis) {
+    let d = 0;
+    for (let i = 0; i < out.length; i++) d += z[i] * out[i];
+    if (d !== 0) for (let i = 0; i < out.length; i++) out[i] -= d * z[i];
+  }
+  return out;
+}
+
 export class PinvSystem {
   private readonly F: BlockFactor;
 
@@ -30,13 +41,7 @@ export class PinvSystem {
 
   /** v minus its part along the null space */
   project(v: ArrayLike<number>): Float64Array {
-    const out = Float64Array.from(v);
-    for (const z of this.spectrum.nullBasis) {
-      let d = 0;
-      for (let i = 0; i < out.length; i++) d += z[i] * out[i];
-      if (d !== 0) for (let i = 0; i < out.length; i++) out[i] -= d * z[i];
-    }
-    return out;
+    return projectOut(this.spectrum.nullBasis, v);
   }
 
   /** largest |zᵀ v| over the null basis */

@@ -15,7 +15,7 @@
 import { Matrix, inverse, solve } from "ml-matrix";
 import { svdRight } from "../linalg";
 import { MAX_SELF_STRESS_LISTED, type SelfStressState } from "../constraint";
-import { PinvSystem } from "./pinv";
+import { PinvSystem, projectOut } from "./pinv";
 import { addRowT, rowDot, type SparseRows } from "./rows";
 import type { LowSpectrum } from "./spectrum";
 
@@ -339,22 +339,12 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     for (let i = 0; i < v.length; i++) t += v[i] * v[i];
     return Math.sqrt(t);
   };
-  /** v minus its part along the free motions (P₁ v) */
-  const project = (v: Float64Array) => {
-    const out = Float64Array.from(v);
-    for (const z of spectrum.nullBasis) {
-      let d = 0;
-      for (let i = 0; i < out.length; i++) d += z[i] * out[i];
-      if (d !== 0) for (let i = 0; i < out.length; i++) out[i] -= d * z[i];
-    }
-    return out;
-  };
-  /** P₁(a_p + A_Cᵀ λ_C) */
+  /** P₁(a_p + A_Cᵀ λ_C), P₁ taking out the free motions */
   const balance = (lam: Float64Array, p: number) => {
     const res = new Float64Array(R.n);
     addRowT(R, p, 1, res);
     for (const i of basis) if (lam[i] !== 0) addRowT(R, i, lam[i], res);
-    return project(res);
+    return projectOut(spectrum.nullBasis, res);
   };
   const local = localSolver(R, basis);
   let direct: ((rhs: Float64Array) => Float64Array) | null | undefined;
@@ -372,8 +362,7 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     const aNorm = norm(a);
     // first by the basis rows' own triangular factor (corrected semi-normal equations), refined while the
     // balance falls; accepted at 1e-8 of the pivot's row (on ill-conditioned basis rows the semi-normal
-    // equations stop there, and conjugate gradients rarely do better)
-    // (built once: null, when the factor of C leaves a row out, stays null)
+    // equations stop there, and conjugate gradients rarely do better). Built once: a null one stays null
     if (direct === undefined) direct = stateSolver(R, basis, order, spectrum.nullBasis, tolerance * spectrum.sigmaMax);
     // the best so far: λ_p = 1 alone to begin with
     let lam = new Float64Array(R.m);
@@ -382,7 +371,7 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     if (direct) {
       const x = new Float64Array(R.m);
       x[p] = 1;
-      let res = a;
+      let res: Float64Array = a;
       let best = Infinity;
       for (let pass = 0; pass < 4; pass++) {
         const dl = direct(res.map((v) => -v));
