@@ -53,9 +53,22 @@ export function mulAT(R: SparseRows, y: ArrayLike<number>): Float64Array {
   return x;
 }
 
-/** x ↦ Aᵀ W A x with row weights w (0 leaves a row out). */
+/** x ↦ Aᵀ W A x with row weights w (0 leaves a row out); the hot product of every iteration, written out flat. */
 export function mulGram(R: SparseRows, w: ArrayLike<number>, x: ArrayLike<number>): Float64Array {
   const out = new Float64Array(R.n);
-  for (let i = 0; i < R.m; i++) if (w[i] !== 0) addRowT(R, i, w[i] * rowDot(R, i, x), out);
+  const { v, b1, b2 } = R;
+  for (let i = 0; i < R.m; i++) {
+    const wi = w[i];
+    if (wi === 0) continue;
+    const o = 6 * i;
+    const p = 6 * b1[i];
+    const q = 6 * b2[i];
+    let s = 0;
+    if (p >= 0) s += v[o] * x[p] + v[o + 1] * x[p + 1] + v[o + 2] * x[p + 2] + v[o + 3] * x[p + 3] + v[o + 4] * x[p + 4] + v[o + 5] * x[p + 5];
+    if (q >= 0) s -= v[o] * x[q] + v[o + 1] * x[q + 1] + v[o + 2] * x[q + 2] + v[o + 3] * x[q + 3] + v[o + 4] * x[q + 4] + v[o + 5] * x[q + 5];
+    s *= wi;
+    if (p >= 0) for (let j = 0; j < 6; j++) out[p + j] += s * v[o + j];
+    if (q >= 0) for (let j = 0; j < 6; j++) out[q + j] -= s * v[o + j];
+  }
   return out;
 }

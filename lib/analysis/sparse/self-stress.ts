@@ -69,15 +69,15 @@ export function lastRowBasis(
           // Givens rotation that zeroes x_c against the slot's row
           const rb = r.get(p)!;
           const a = rb[j];
-          const h = Math.hypot(a, xv);
+          // no overflow to guard against (rows are scaled to order one): sqrt, not the slower Math.hypot
+          const h = Math.sqrt(a * a + xv * xv);
           const cs = a / h;
           const sn = xv / h;
           // x is now keep · (the original row) + a combination of the original slot rows
           keep *= Math.abs(cs);
-          const keys = new Set<number>([...r.keys(), ...x.keys()]);
-          for (const q of keys) {
-            let rq = r.get(q);
-            if (!rq) r.set(q, (rq = new Float64Array(6)));
+          // both rows get the union of their blocks, then one pass over the slot row's
+          for (const q of x.keys()) if (!r.has(q)) r.set(q, new Float64Array(6));
+          for (const [q, rq] of r) {
             let xq = x.get(q);
             if (!xq) x.set(q, (xq = new Float64Array(6)));
             for (let jj = q === p ? j : 0; jj < 6; jj++) {

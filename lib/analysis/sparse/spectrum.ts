@@ -117,36 +117,45 @@ function largestTridiagonalEigenvalue(a: number[], b: number[]): number {
   return 0.5 * (lo + hi);
 }
 
-/** σ_max(B) by Lanczos on BᵀB with full reorthogonalisation. */
+/**
+ * σ_max(B) by Lanczos on BᵀB. Only the largest eigenvalue is wanted, so the three-term recurrence runs without
+ * reorthogonalisation against the whole basis (each step is orthogonalised against the two vectors before it):
+ * the loss of orthogonality that sets in as the top Ritz value converges only repeats that value (Paige's
+ * analysis), it does not move it, and the steps then cost O(n) instead of O(j·n).
+ */
 export function sigmaMax(R: SparseRows, w: ArrayLike<number>): number {
   const n = R.n;
   if (n === 0) return 0;
   const rnd = seeded(7);
   let q = Float64Array.from({ length: n }, () => rnd());
   q = q.map((v) => v / normv(q));
-  const Q: Float64Array[] = [q];
+  let qPrev = new Float64Array(n);
   const alpha: number[] = [];
   const beta: number[] = [];
   let theta = 0;
-  const steps = Math.min(n, 120);
+  let aMax = 0;
+  const steps = Math.min(n, 300);
   for (let j = 0; j < steps; j++) {
-    const z = mulGram(R, w, Q[j]);
-    const a = dotv(z, Q[j]);
+    const z = mulGram(R, w, q);
+    const a = dotv(z, q);
     alpha.push(a);
-    for (let pass = 0; pass < 2; pass++)
-      for (const qq of Q) {
-        const d = dotv(qq, z);
-        for (let i = 0; i < n; i++) z[i] -= d * qq[i];
-      }
+    aMax = Math.max(aMax, Math.abs(a));
+    const bPrev = j > 0 ? beta[j - 1] : 0;
+    for (let i = 0; i < n; i++) z[i] -= a * q[i] + bPrev * qPrev[i];
+    // a second local pass keeps the recurrence's own round-off out of the next vector
+    const d1 = dotv(z, q);
+    const d0 = j > 0 ? dotv(z, qPrev) : 0;
+    for (let i = 0; i < n; i++) z[i] -= d1 * q[i] + d0 * qPrev[i];
     const b = normv(z);
-    if (j % 4 === 3 || b < 1e-14 * Math.max(...alpha.map(Math.abs)) || j === steps - 1) {
+    if (j % 4 === 3 || b < 1e-14 * aMax || j === steps - 1) {
       const top = largestTridiagonalEigenvalue(alpha, beta);
       const settled = Math.abs(top - theta) <= 1e-13 * Math.abs(top);
       theta = top;
       if (settled || b < 1e-14 * Math.abs(top)) break;
     }
     beta.push(b);
-    Q.push(z.map((v) => v / b));
+    qPrev = q;
+    q = z.map((v) => v / b);
   }
   return Math.sqrt(Math.max(theta, 0));
 }
@@ -245,8 +254,11 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
     // against LAPACK). Once the block is near its fixed point, each solve takes one refinement step against
     // the unsquared product Bᵀ(B x), whose error in the small directions is only ε·σ_max·σ: the iteration
     // then converges to B's own singular vectors.
+    // Only the null directions and the weakest one (the first f + 1 Ritz vectors) are refined: the others only
+    // widen the block, and the Rayleigh–Ritz step below reads the wanted vectors off the whole span.
     const refine = iter > 0 && Math.max(prevGapNull, prevGapWeak) < 1e-3;
-    const Z = orthonormalise(Q.map((q) => (refine ? refinedSolve(R, w, F, shift, q) : solveFactor(F, q))));
+    const refined = refine ? prevNull.length + 1 : 0;
+    const Z = orthonormalise(Q.map((q, c) => (c < refined ? refinedSolve(R, w, F, shift, q) : solveFactor(F, q))));
     // Rayleigh–Ritz on B: singular values and right vectors of B Z, through its Householder QR (B Z = QR
     // has R's singular values and right vectors; backward stable, and the SVD is then k × k, not m × k)
     const C = Z.map((z) => {
