@@ -19,97 +19,191 @@ import { PinvSystem, projectOut } from "./pinv";
 import { addRowT, rowDot, type SparseRows } from "./rows";
 import type { LowSpectrum } from "./spectrum";
 
-type SparseVec = Map<number, Float64Array>;
+/**
+ * Storage of a row QR factor in the body graph's elimination order. The slot rows of step p can only touch the
+ * steps that eliminating p couples it to (the pattern of the block Cholesky factor of AᵀA: George and Heath),
+ * so each step's six slot rows are kept dense over that fixed pattern, found once before any rotation.
+ */
+export interface RowFactor {
+  /** elimination step of each body */
+  pos: Int32Array;
+  /** per step p: the steps its slot rows may touch, p itself first, then ascending */
+  pattern: Int32Array[];
+  /** per elimination column c = 6p + j: whether a row holds that slot */
+  has: Uint8Array;
+  /** per step p: its six slot rows, row j at 6·|pattern[p]|·j, block k of the pattern at 6k within it */
+  val: Float64Array[];
+}
 
-/** Rows of A that form the lexicographically last row basis (by the given order), at threshold tau. */
-export function lastRowBasis(
-  R: SparseRows,
-  sorted: number[],
-  order: Int32Array,
-  tau: number,
-  limit: number,
-): { inBasis: boolean[]; slots: (SparseVec | null)[]; pos: Int32Array } {
+/** The elimination steps and fill pattern of the body graph of all rows, in the given body order. */
+export function symbolicPattern(R: SparseRows, order: Int32Array): { pos: Int32Array; pattern: Int32Array[] } {
   const N = R.N;
   const pos = new Int32Array(N);
   order.forEach((b, p) => (pos[b] = p));
-  const slots: (SparseVec | null)[] = new Array(6 * N).fill(null);
+  const adj = Array.from({ length: N }, () => new Set<number>());
+  for (let i = 0; i < R.m; i++) {
+    const [a, b] = [R.b1[i], R.b2[i]];
+    if (a >= 0 && b >= 0 && a !== b) {
+      adj[pos[a]].add(pos[b]);
+      adj[pos[b]].add(pos[a]);
+    }
+  }
+  const pattern: Int32Array[] = [];
+  for (let p = 0; p < N; p++) {
+    const later = [...adj[p]].filter((q) => q > p).sort((x, y) => x - y);
+    pattern.push(Int32Array.from([p, ...later]));
+    // eliminating p joins its later neighbours to one another
+    for (const q of later) for (const q2 of later) if (q2 !== q) adj[q].add(q2);
+  }
+  return { pos, pattern };
+}
+
+/**
+ * Rows of A that form the lexicographically last row basis (by the order of `sorted`), at threshold tau, and
+ * the triangular factor of those rows alone. Each row is rotated in a dense scratch vector, block by block in
+ * increasing elimination step: the part of it still to eliminate at step p lies within p's pattern. A row found
+ * dependent is taken back out: its rotations are undone in reverse order (orthogonal, so the slot rows return
+ * to round-off), which leaves the factor of the basis rows' own (what the semi-normal equations need).
+ */
+export function lastRowBasis(
+  R: SparseRows,
+  sorted: number[],
+  sym: { pos: Int32Array; pattern: Int32Array[] },
+  tau: number,
+  limit: number,
+): { inBasis: boolean[]; factor: RowFactor } {
+  const { pos, pattern } = sym;
+  const N = R.N;
+  const has = new Uint8Array(6 * N);
+  const val = pattern.map((pt) => new Float64Array(36 * pt.length));
   const inBasis = new Array<boolean>(R.m).fill(false);
+  const x = new Float64Array(6 * N);
+  const live = new Uint8Array(N);
+  const touched: number[] = [];
+  // the current row's rotations (slot column, cosine, sine) and the entries it dropped below the cut
+  const turns: number[] = [];
+  const cuts: number[] = [];
   let accepted = 0;
+  const rowNorm = () => {
+    let s = 0;
+    for (const q of touched) if (live[q]) for (let j = 6 * q; j < 6 * q + 6; j++) s += x[j] * x[j];
+    return Math.sqrt(s);
+  };
   // once `limit` rows are in, every earlier row depends on them
   for (let t = sorted.length - 1; t >= 0 && accepted < limit; t--) {
     const i = sorted[t];
-    const x: SparseVec = new Map();
-    const put = (b: number, sign: number) => {
-      if (b < 0) return;
+    touched.length = 0;
+    for (const [b, sign] of [
+      [R.b1[i], 1],
+      [R.b2[i], -1],
+    ]) {
+      if (b < 0) continue;
       const p = pos[b];
-      const blk = x.get(p) ?? new Float64Array(6);
-      for (let j = 0; j < 6; j++) blk[j] += sign * R.v[6 * i + j];
-      x.set(p, blk);
-    };
-    put(R.b1[i], 1);
-    put(R.b2[i], -1);
-    const rowNorm = () => {
-      let s = 0;
-      for (const blk of x.values()) for (let j = 0; j < 6; j++) s += blk[j] * blk[j];
-      return Math.sqrt(s);
-    };
+      if (!live[p]) {
+        live[p] = 1;
+        touched.push(p);
+      }
+      for (let j = 0; j < 6; j++) x[6 * p + j] += sign * R.v[6 * i + j];
+    }
     let placed = false;
     let keep = 1;
-    // visit x's blocks in increasing elimination step; rotations only add later blocks
-    while (x.size > 0 && !placed) {
-      let p = Infinity;
-      for (const k of x.keys()) if (k < p) p = k;
-      const blk = x.get(p)!;
+    turns.length = 0;
+    cuts.length = 0;
+    for (;;) {
+      let p = -1;
+      for (const q of touched) if (live[q] && (p < 0 || q < p)) p = q;
+      if (p < 0) break;
+      const pt = pattern[p];
+      const width = 6 * pt.length;
+      const rv = val[p];
       for (let j = 0; j < 6 && !placed; j++) {
-        const xv = blk[j];
+        const xv = x[6 * p + j];
         if (xv === 0) continue;
-        const c = 6 * p + j;
-        const r = slots[c];
-        if (r) {
+        const base = width * j;
+        if (has[6 * p + j]) {
           // Givens rotation that zeroes x_c against the slot's row
-          const rb = r.get(p)!;
-          const a = rb[j];
+          const a = rv[base + j];
           // no overflow to guard against (rows are scaled to order one): sqrt, not the slower Math.hypot
           const h = Math.sqrt(a * a + xv * xv);
           const cs = a / h;
           const sn = xv / h;
           // x is now keep · (the original row) + a combination of the original slot rows
           keep *= Math.abs(cs);
-          // both rows get the union of their blocks, then one pass over the slot row's
-          for (const q of x.keys()) if (!r.has(q)) r.set(q, new Float64Array(6));
-          for (const [q, rq] of r) {
-            let xq = x.get(q);
-            if (!xq) x.set(q, (xq = new Float64Array(6)));
-            for (let jj = q === p ? j : 0; jj < 6; jj++) {
-              const rv = rq[jj];
-              const xw = xq[jj];
-              rq[jj] = cs * rv + sn * xw;
-              xq[jj] = -sn * rv + cs * xw;
+          turns.push(6 * p + j, cs, sn);
+          for (let k = 0; k < pt.length; k++) {
+            const q = pt[k];
+            if (!live[q]) {
+              live[q] = 1;
+              touched.push(q);
+            }
+            const xo = 6 * q;
+            const ro = base + 6 * k;
+            for (let jj = k === 0 ? j : 0; jj < 6; jj++) {
+              const r0 = rv[ro + jj];
+              const x0 = x[xo + jj];
+              rv[ro + jj] = cs * r0 + sn * x0;
+              x[xo + jj] = -sn * r0 + cs * x0;
             }
           }
-          blk[j] = 0;
+          x[6 * p + j] = 0;
         } else {
           // dependent when even ‖x‖ / keep, a bound on the original row's distance to the slot rows' span, is
           // under the threshold (‖x‖ alone is not: a rotation against a small pivot moves the row into the slot)
-          if (rowNorm() <= tau * keep) break;
-          if (Math.abs(xv) <= 1e-10 * rowNorm()) {
-            blk[j] = 0;
+          const len = rowNorm();
+          if (len <= tau * keep) break;
+          if (Math.abs(xv) <= 1e-10 * len) {
+            cuts.push(6 * p + j, xv);
+            x[6 * p + j] = 0;
             continue;
           }
           // independent: x becomes the slot's row (zeros before column c are dropped)
-          for (let jj = 0; jj < j; jj++) blk[jj] = 0;
-          slots[c] = x;
+          for (let k = 0; k < pt.length; k++) for (let jj = k === 0 ? j : 0; jj < 6; jj++) rv[base + 6 * k + jj] = x[6 * pt[k] + jj];
+          has[6 * p + j] = 1;
           inBasis[i] = true;
           accepted++;
           placed = true;
         }
       }
-      if (placed) break;
-      if (rowNorm() <= tau * keep) break;
-      x.delete(p);
+      if (placed || rowNorm() <= tau * keep) break;
+      // block p is done: every entry rotated away or dropped
+      x.fill(0, 6 * p, 6 * p + 6);
+      live[p] = 0;
+    }
+    if (!placed && turns.length > 0) {
+      // dependent: the dropped entries back in place (no later rotation touched them), then every rotation
+      // undone, last first; x's blocks reappear as the slot rows' patterns need them
+      for (let e = 0; e < cuts.length; e += 2) x[cuts[e]] = cuts[e + 1];
+      for (let e = turns.length - 3; e >= 0; e -= 3) {
+        const c = turns[e];
+        const [cs, sn] = [turns[e + 1], turns[e + 2]];
+        const p = Math.floor(c / 6);
+        const j = c - 6 * p;
+        const pt = pattern[p];
+        const base = 6 * pt.length * j;
+        const rv = val[p];
+        for (let k = 0; k < pt.length; k++) {
+          const q = pt[k];
+          if (!live[q]) {
+            live[q] = 1;
+            touched.push(q);
+          }
+          const xo = 6 * q;
+          const ro = base + 6 * k;
+          for (let jj = k === 0 ? j : 0; jj < 6; jj++) {
+            const r1 = rv[ro + jj];
+            const x1 = x[xo + jj];
+            rv[ro + jj] = cs * r1 - sn * x1;
+            x[xo + jj] = sn * r1 + cs * x1;
+          }
+        }
+      }
+    }
+    for (const q of touched) {
+      x.fill(0, 6 * q, 6 * q + 6);
+      live[q] = 0;
     }
   }
-  return { inBasis, slots, pos };
+  return { inBasis, factor: { pos, pattern, has, val } };
 }
 
 /**
@@ -121,16 +215,9 @@ export function lastRowBasis(
  * triangular factor of the basis rows (semi-normal equations RᵀR y = V₂d, μ = A_B y, corrected while the residual falls),
  * d from the small dense SVD of what V₂'s columns leave outside range(Rᵀ). Drops them from `inBasis`.
  */
-function quotientBasis(
-  R: SparseRows,
-  sorted: number[],
-  found: { inBasis: boolean[]; slots: (SparseVec | null)[]; pos: Int32Array },
-  nullBasis: Float64Array[],
-  excess: number,
-): void {
-  const { inBasis, slots, pos } = found;
+function quotientBasis(R: SparseRows, sorted: number[], inBasis: boolean[], factor: RowFactor, nullBasis: Float64Array[], excess: number): void {
   const n = R.n;
-  const { toElim, fromElim, forward, backward } = triangular(R, slots, pos);
+  const { toElim, fromElim, forward, backward } = triangular(R, factor);
   const basisRows = sorted.filter((i) => inBasis[i]);
   /** μ = A_B y for y in elimination coordinates */
   const muOf = (yElim: Float64Array) => {
@@ -140,7 +227,7 @@ function quotientBasis(
   // what each null vector leaves outside range(Rᵀ) = range(A_Bᵀ)
   const parts = nullBasis.map((z) => forward(toElim(z)));
   const nonSlot: number[] = [];
-  for (let c = 0; c < n; c++) if (!slots[c]) nonSlot.push(c);
+  for (let c = 0; c < n; c++) if (!factor.has[c]) nonSlot.push(c);
   const L = new Matrix(Math.max(nonSlot.length, nullBasis.length), nullBasis.length);
   parts.forEach(({ left }, j) => nonSlot.forEach((c, k) => L.set(k, j, left[c])));
   const { V } = svdRight(L);
@@ -193,14 +280,26 @@ function quotientBasis(
  * Solves for the state coefficients on the basis rows C directly: λ_C with A_Cᵀ λ_C = rhs + V₂ d (the balance
  * up to a free motion), through the row QR factor of C alone (A_CᵀA_C = RᵀR): Rᵀt = rhs + V₂d forward on R's
  * columns, d chosen so nothing is left on the free columns (a small dense solve), R y = t back, λ_C = A_C y.
- * Null when the factor of C does not take every row of C (the caller falls back to conjugate gradients).
+ * `factor` is C's own when the caller has it, else C is factored here. Null when the factor of C does not take
+ * every row of C (the caller falls back to conjugate gradients).
  */
-function stateSolver(R: SparseRows, basis: number[], order: Int32Array, nullBasis: Float64Array[], tau: number): ((rhs: Float64Array) => Float64Array) | null {
-  const own = lastRowBasis(R, basis, order, tau, R.n);
-  if (own.inBasis.filter(Boolean).length !== basis.length) return null;
-  const F = triangular(R, own.slots, own.pos);
+function stateSolver(
+  R: SparseRows,
+  basis: number[],
+  sym: { pos: Int32Array; pattern: Int32Array[] },
+  nullBasis: Float64Array[],
+  tau: number,
+  factor: RowFactor | null,
+): ((rhs: Float64Array) => Float64Array) | null {
+  let own = factor;
+  if (!own) {
+    const found = lastRowBasis(R, basis, sym, tau, R.n);
+    if (found.inBasis.filter(Boolean).length !== basis.length) return null;
+    own = found.factor;
+  }
+  const F = triangular(R, own);
   const free: number[] = [];
-  for (let c = 0; c < R.n; c++) if (!own.slots[c]) free.push(c);
+  for (let c = 0; c < R.n; c++) if (!own.has[c]) free.push(c);
   if (free.length !== nullBasis.length) return null;
   const parts = nullBasis.map((z) => F.forward(F.toElim(z)));
   const L = new Matrix(free.length, free.length);
@@ -222,7 +321,10 @@ function stateSolver(R: SparseRows, basis: number[], order: Int32Array, nullBasi
       });
     }
     const y = F.fromElim(F.backward(g.t));
-    return Float64Array.from(basis, (i) => rowDot(R, i, y));
+    // a plain loop: Float64Array.from with a mapping function is several times slower in V8
+    const lam = new Float64Array(basis.length);
+    for (let k = 0; k < basis.length; k++) lam[k] = rowDot(R, basis[k], y);
+    return lam;
   };
 }
 
@@ -230,26 +332,39 @@ function stateSolver(R: SparseRows, basis: number[], order: Int32Array, nullBasi
  * Forward and back substitution with a row QR factor (slot rows by column, in elimination coordinates), the
  * rows copied once into flat arrays (column index and value, diagonal first) for the repeated solves.
  */
-function triangular(R: SparseRows, slots: (SparseVec | null)[], pos: Int32Array) {
+function triangular(R: SparseRows, factor: RowFactor) {
   const n = R.n;
+  const { pos, pattern, has, val: rowVal } = factor;
   const cols: number[] = [];
-  slots.forEach((r, c) => r && cols.push(c));
+  has.forEach((h, c) => h && cols.push(c));
   const ptr = new Int32Array(cols.length + 1);
   let nnz = 0;
-  for (const c of cols) for (const blk of slots[c]!.values()) for (let j = 0; j < 6; j++) if (blk[j] !== 0) nnz++;
+  for (const c of cols) {
+    const p = Math.floor(c / 6);
+    const width = 6 * pattern[p].length;
+    const base = width * (c % 6);
+    for (let e = base; e < base + width; e++) if (rowVal[p][e] !== 0) nnz++;
+  }
+  // the diagonal (never zero in a slot row) first, then the other entries
   const at = new Int32Array(nnz);
   const val = new Float64Array(nnz);
   let e = 0;
   cols.forEach((c, k) => {
-    const r = slots[c]!;
+    const p = Math.floor(c / 6);
+    const j = c % 6;
+    const pt = pattern[p];
+    const rv = rowVal[p];
+    const base = 6 * pt.length * j;
     at[e] = c;
-    val[e++] = r.get(Math.floor(c / 6))![c % 6];
-    for (const [q, blk] of r)
-      for (let j = 0; j < 6; j++)
-        if (blk[j] !== 0 && 6 * q + j !== c) {
-          at[e] = 6 * q + j;
-          val[e++] = blk[j];
+    val[e++] = rv[base + j];
+    for (let b = 0; b < pt.length; b++)
+      for (let jj = 0; jj < 6; jj++) {
+        const v = rv[base + 6 * b + jj];
+        if (v !== 0 && !(b === 0 && jj === j)) {
+          at[e] = 6 * pt[b] + jj;
+          val[e++] = v;
         }
+      }
     ptr[k + 1] = e;
   });
   return {
@@ -316,20 +431,12 @@ function orthonormalColumns(vs: number[][], len: number): number[][] {
 export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spectrum: LowSpectrum, order: Int32Array, tolerance: number): SelfStressState[] {
   const sorted = contactIds.map((id, i) => [id, i] as const).sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
   const idx = sorted.map(([, i]) => i);
-  const found = lastRowBasis(R, idx, order, tolerance * spectrum.sigmaMax, R.n);
-  const { inBasis } = found;
+  const sym = symbolicPattern(R, order);
+  const { inBasis, factor } = lastRowBasis(R, idx, sym, tolerance * spectrum.sigmaMax, R.n);
   const excess = inBasis.filter(Boolean).length - spectrum.rank;
-  if (excess > 0) {
-    // the factor above also absorbed the rows it rejected: the semi-normal equations need the basis rows' own
-    const own = lastRowBasis(
-      R,
-      idx.filter((i) => inBasis[i]),
-      order,
-      0,
-      R.n,
-    );
-    quotientBasis(R, idx, { inBasis, slots: own.slots, pos: own.pos }, spectrum.nullBasis, excess);
-  }
+  // the factor is the basis rows' own (rejected rows were taken back out): the quotient's semi-normal equations
+  // use it, and so do the direct state solves when the quotient keeps every row
+  if (excess > 0) quotientBasis(R, idx, inBasis, factor, spectrum.nullBasis, excess);
   const pivots = idx.filter((i) => !inBasis[i]).slice(0, MAX_SELF_STRESS_LISTED);
   if (pivots.length === 0) return [];
   const states: SelfStressState[] = [];
@@ -363,7 +470,7 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     // first by the basis rows' own triangular factor (corrected semi-normal equations), refined while the
     // balance falls; accepted at 1e-8 of the pivot's row (on ill-conditioned basis rows the semi-normal
     // equations stop there, and conjugate gradients rarely do better). Built once: a null one stays null
-    if (direct === undefined) direct = stateSolver(R, basis, order, spectrum.nullBasis, tolerance * spectrum.sigmaMax);
+    if (direct === undefined) direct = stateSolver(R, basis, sym, spectrum.nullBasis, tolerance * spectrum.sigmaMax, excess > 0 ? null : factor);
     // the best so far: λ_p = 1 alone to begin with
     let lam = new Float64Array(R.m);
     lam[p] = 1;

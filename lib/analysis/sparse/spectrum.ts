@@ -44,7 +44,10 @@ function orthonormalise(cols: Float64Array[]): Float64Array[] {
         for (let i = 0; i < c.length; i++) c[i] -= d * q[i];
       }
     const len = normv(c);
-    if (len > 1e-12 * before && len > 0) out.push(c.map((v) => v / len));
+    if (len > 1e-12 * before && len > 0) {
+      for (let i = 0; i < c.length; i++) c[i] /= len;
+      out.push(c);
+    }
   }
   return out;
 }
@@ -127,9 +130,11 @@ export function sigmaMax(R: SparseRows, w: ArrayLike<number>): number {
   const n = R.n;
   if (n === 0) return 0;
   const rnd = seeded(7);
-  let q = Float64Array.from({ length: n }, () => rnd());
-  q = q.map((v) => v / normv(q));
-  let qPrev = new Float64Array(n);
+  let q: Float64Array = new Float64Array(n);
+  for (let i = 0; i < n; i++) q[i] = rnd();
+  const q0 = normv(q);
+  for (let i = 0; i < n; i++) q[i] /= q0;
+  let qPrev: Float64Array = new Float64Array(n);
   const alpha: number[] = [];
   const beta: number[] = [];
   let theta = 0;
@@ -155,7 +160,8 @@ export function sigmaMax(R: SparseRows, w: ArrayLike<number>): number {
     }
     beta.push(b);
     qPrev = q;
-    q = z.map((v) => v / b);
+    for (let i = 0; i < n; i++) z[i] /= b;
+    q = z;
   }
   return Math.sqrt(Math.max(theta, 0));
 }
@@ -263,7 +269,7 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
     // has R's singular values and right vectors; backward stable, and the SVD is then k × k, not m × k)
     const C = Z.map((z) => {
       const col = new Float64Array(Math.max(rowsUsed.length, Z.length));
-      rowsUsed.forEach((i, r) => (col[r] = sqrtW[i] * rowDot(R, i, z)));
+      for (let r = 0; r < rowsUsed.length; r++) col[r] = sqrtW[rowsUsed[r]] * rowDot(R, rowsUsed[r], z);
       return col;
     });
     const { s, V } = svdRight(householderR(C));
@@ -276,7 +282,8 @@ export function lowSpectrum(R: SparseRows, w: ArrayLike<number>, tolerance: numb
       const v = new Float64Array(n);
       for (let c = 0; c < k; c++) {
         const coef = V.get(c, j);
-        if (coef !== 0) for (let i = 0; i < n; i++) v[i] += coef * Z[c][i];
+        const zc = Z[c];
+        if (coef !== 0) for (let i = 0; i < n; i++) v[i] += coef * zc[i];
       }
       ritz.push(v);
       vals.push(sig[j]);
