@@ -58,9 +58,10 @@ export type EngineMethod = "dense" | "structured";
 
 /**
  * Layouts with more bodies than this go to the structured engine by default (the dense SVD's cost grows
- * with the cube). Its counts, free motions, conditioning and σ_max agree with the dense path (tests);
- * its canonical self-stress states do not yet on ill-conditioned layouts, so the dense path stays the
- * default wherever it answers within the upload time-out.
+ * with the cube). Its counts, free motions, conditioning, σ_max and canonical self-stress states agree with
+ * the dense path (tests); where the canonical form is ill-posed (its pivot block singular to round-off) only
+ * the pivots and the balance of each state can agree, so the dense path, the reference, stays the default
+ * wherever it answers within the upload time-out.
  */
 export const DENSE_MAX_BODIES = 80;
 

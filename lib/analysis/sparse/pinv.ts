@@ -31,8 +31,10 @@ export class PinvSystem {
     /** the rank analysis of W^½ A: σ_max and an orthonormal null basis */
     readonly spectrum: LowSpectrum,
     tolerance: number,
+    /** the factor's shift as a fraction of the rank threshold (squared): smaller preconditions better when the factor takes it */
+    shiftFraction = 0.1,
   ) {
-    this.F = shiftedFactor(R, w, (0.1 * tolerance * spectrum.sigmaMax) ** 2 || 1e-300).F;
+    this.F = shiftedFactor(R, w, (shiftFraction * tolerance * spectrum.sigmaMax) ** 2 || 1e-300).F;
   }
 
   get rank(): number {
@@ -66,7 +68,7 @@ export class PinvSystem {
    * even when the factor needed a larger shift (stationary refinement would crawl at ε/(μ + ε) a pass).
    * Finished by refinement passes on the true residual.
    */
-  apply(rhs: ArrayLike<number>, patience = 3): Float64Array {
+  apply(rhs: ArrayLike<number>, patience = 3, tolerance = 1e-16): Float64Array {
     const b = this.project(rhs);
     const n = b.length;
     const bNorm = norm(b);
@@ -88,7 +90,7 @@ export class PinvSystem {
         r[i] -= alpha * Ap[i];
       }
       const rn = norm(r);
-      if (rn <= 1e-16 * bNorm) break;
+      if (rn <= tolerance * bNorm) break;
       // stop at round-off: the residual has not halved in three iterations (`patience` while it is above 1e-10
       // of the right-hand side: on an ill-conditioned operator, such as the basis rows of a self-stress solve,
       // the residual of conjugate gradients can stall for a while before it falls again)
@@ -101,9 +103,10 @@ export class PinvSystem {
       rz = rzNew;
       for (let i = 0; i < n; i++) p[i] = z[i] + beta * p[i];
     }
-    // refinement on the true residual (the recurrence's residual drifts from it at round-off)
+    // refinement on the true residual (the recurrence's residual drifts from it at round-off); none when a
+    // looser answer was asked for
     let prev = Infinity;
-    for (let pass = 0; pass < 3; pass++) {
+    for (let pass = 0; pass < (tolerance > 1e-16 ? 0 : 3); pass++) {
       const Mx = this.project(mulGram(this.R, this.w, x));
       const res = new Float64Array(n);
       for (let i = 0; i < n; i++) res[i] = b[i] - Mx[i];

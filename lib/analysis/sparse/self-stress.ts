@@ -10,13 +10,17 @@
  * block Cholesky factor as the fallback. Rows are independent "modulo the free motions" (§2's left
  * null space is that of A with its numerical null space taken out): the basis in A is thinned by the rows
  * that stand apart only along a free motion whose singular value is small but not zero.
+ * The row QR keeps a fixed column order, so it does not reveal rank: on layouts whose canonical form is
+ * ill-posed its basis rows can be singular to working precision. A state that then fails to balance sends the
+ * whole form to the dense path's own pivot rule, applied to the projections P_S e_j of unit vectors on the
+ * self-stress space (statesByProjection): the same pivots, and states that balance.
  * Written here because no npm package offers a row-sequential sparse QR.
  */
-import { Matrix, inverse, solve } from "ml-matrix";
+import { Matrix, SingularValueDecomposition, inverse, solve } from "ml-matrix";
 import { svdRight } from "../linalg";
 import { MAX_SELF_STRESS_LISTED, type SelfStressState } from "../constraint";
 import { PinvSystem, projectOut } from "./pinv";
-import { addRowT, rowDot, type SparseRows } from "./rows";
+import { addRowT, mulAT, rowDot, type SparseRows } from "./rows";
 import type { LowSpectrum } from "./spectrum";
 
 /**
@@ -489,12 +493,12 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
         best = rn;
       }
     }
-    if (!(lamRes <= 1e-8 * aNorm) && fruitless < 5) {
+    if (!(lamRes <= 1e-8 * aNorm) && lamRes < 0.5 * aNorm && fruitless < 1) {
       // else λ_C = −A_C (A_CᵀA_C)⁺ a_p, the pseudo-inverse by preconditioned conjugate gradients (patient: on
       // ill-conditioned basis rows their residual stalls before it falls), refined while the balance falls.
       // A_C has the rank of A: its operator, with A's free motions projected out, is invertible on the rest.
-      // Once five of these have failed too, the canonical form of this layout is numerically meaningless
-      // (its pivots are a round-off decision): the remaining states keep the direct result.
+      // Once one of these has failed too, the remaining states go straight to the check below; so do they when
+      // the direct passes could not even halve the pivot's row (the basis rows do not reach it at all).
       sys ??= new PinvSystem(
         R,
         inBasis.map((b) => (b ? 1 : 0)),
@@ -515,6 +519,12 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
       }
       if (!(lamRes <= 1e-8 * aNorm)) fruitless++;
     }
+    if (!(lamRes <= 1e-8 * aNorm)) {
+      // The basis rows cannot express −a_p to round-off: they are singular to working precision, so the
+      // row QR's pivots were a round-off decision (its fixed column order does not reveal rank). The whole
+      // canonical form is then taken by the dense path's own rule on projected unit vectors (below).
+      return statesByProjection(R, sorted, spectrum, tolerance);
+    }
     states.push(stateOf(lam, p));
   }
   return states;
@@ -526,6 +536,118 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
     for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
     return { pivot: contactIds[p], forces };
   }
+}
+
+const vnorm = (v: ArrayLike<number>) => {
+  let t = 0;
+  for (let i = 0; i < v.length; i++) t += v[i] * v[i];
+  return Math.sqrt(t);
+};
+
+/** Self-stress spaces up to this dimension are taken whole by the projection rule (all pivots, exact RREF). */
+const PROJECTION_WHOLE = 50;
+
+/**
+ * The canonical states by the dense path's rule, for layouts whose row QR cannot decide the pivots (basis rows
+ * singular to working precision). With P_S the orthogonal projector on the self-stress space S, the vector
+ * z_j = P_S e_j = e_j − A (AᵀA)⁺ P₁a_j (all rows; the pseudo-inverse by conjugate gradients, balanced to
+ * round-off) has, against the earlier z's, the residual that row j of an orthonormal basis Y of S has against
+ * the earlier rows of Y (Y maps coordinates isometrically onto S). So contacts are visited in sorted order and
+ * one is a pivot when its z keeps more than 1e-8 after Gram–Schmidt on the earlier pivots' (the dense rule),
+ * and the state of pivot s is Q (Q_P)⁻¹ e_s, Q the orthonormal basis built on the way: the RREF exactly when
+ * every pivot is found (spaces up to PROJECTION_WHOLE), else the states of the first 50 pivots with zero on one
+ * another (each balances; the pivots are the dense path's).
+ */
+function statesByProjection(R: SparseRows, sorted: (readonly [string, number])[], spectrum: LowSpectrum, tolerance: number): SelfStressState[] {
+  const k = R.m - spectrum.rank;
+  const want = k <= PROJECTION_WHOLE ? k : Math.min(k, MAX_SELF_STRESS_LISTED);
+  // every row, with a factor shifted 1e-4 below the rank threshold's square (raised while round-off makes it
+  // indefinite): conjugate gradients then take a couple of steps per solve
+  const full = new PinvSystem(R, new Float64Array(R.m).fill(1), spectrum, tolerance, 0.01);
+  const Q: Float64Array[] = [];
+  const pivots: number[] = [];
+  /** v ← P_S v: the part of v that A's rows balance taken out, refined while the balance P₁Aᵀv falls */
+  const toS = (v: Float64Array) => {
+    let best = Infinity;
+    for (let pass = 0; pass < 4; pass++) {
+      const res = projectOut(spectrum.nullBasis, mulAT(R, v));
+      const rn = vnorm(res);
+      if (rn <= 1e-15 * spectrum.sigmaMax * vnorm(v) || rn > 0.5 * best) break;
+      best = rn;
+      const y = full.apply(res);
+      for (let i = 0; i < R.m; i++) v[i] -= rowDot(R, i, y);
+    }
+  };
+  /** v minus its part along the pivots' orthonormal vectors so far (twice) */
+  const orthogonalise = (v: Float64Array) => {
+    for (let pass = 0; pass < 2; pass++)
+      for (const q of Q) {
+        let d = 0;
+        for (let i = 0; i < R.m; i++) d += q[i] * v[i];
+        for (let i = 0; i < R.m; i++) v[i] -= d * q[i];
+      }
+    return vnorm(v);
+  };
+  for (const [, j] of sorted) {
+    if (pivots.length >= want) break;
+    // A quick z_j (conjugate gradients to 1e-12) can only overstate the residual: its error A·δy lies in the
+    // range of A, orthogonal to S and so to the residual's true part. At or under 1e-8 the row is not a pivot;
+    // just above, z_j is projected on S to round-off and its residual taken again before it counts.
+    const z = new Float64Array(R.m);
+    z[j] = 1;
+    const y = full.apply(projectOut(spectrum.nullBasis, mulAT(R, z)), 3, 1e-12);
+    for (let i = 0; i < R.m; i++) z[i] -= rowDot(R, i, y);
+    // one pass with the exact coefficients: ⟨q, z_j⟩ = q_j for q in S
+    for (const q of Q) {
+      const d = q[j];
+      if (d !== 0) for (let i = 0; i < R.m; i++) z[i] -= d * q[i];
+    }
+    const quick = vnorm(z);
+    if (!(quick > 1e-8)) continue;
+    // well above the threshold the quick value decides (its error is some 1e-10 at most): a pivot
+    if (quick <= 1e-6) toS(z);
+    const len = quick <= 1e-6 ? orthogonalise(z) : quick;
+    if (len > 1e-8) {
+      // the residual is small beside the round-off it carries when len is small: normalised, projected on S
+      // again and orthogonalised again, so every basis vector balances to round-off of its own unit size
+      for (let i = 0; i < R.m; i++) z[i] /= len;
+      toS(z);
+      const again = orthogonalise(z);
+      for (let i = 0; i < R.m; i++) z[i] /= again;
+      Q.push(z);
+      pivots.push(j);
+    }
+  }
+  const L = pivots.length;
+  if (L === 0) return [];
+  // q_s is supported on the contacts from p_s on (it is orthogonal to every earlier z, and ⟨q, z_j⟩ = q_j on
+  // S) with q_s at p_s equal to its residual: q_s / q_s[p_s] is the echelon state of pivot s. The reduced form
+  // Q (Q_P)⁻¹ needs every pivot and a pivot block that is not singular to working precision
+  const QP = new Matrix(L, L);
+  pivots.forEach((p, r) => Q.forEach((q, c) => QP.set(r, c, q[p])));
+  const sv = L === k ? new SingularValueDecomposition(QP, { computeLeftSingularVectors: false, computeRightSingularVectors: false }).diagonal : [];
+  const reduced = L === k && sv[L - 1] > 1e-10 * sv[0];
+  const W = reduced ? inverse(QP) : null;
+  const states: SelfStressState[] = [];
+  for (let si = 0; si < Math.min(L, MAX_SELF_STRESS_LISTED); si++) {
+    let lam = new Float64Array(R.m);
+    if (W) {
+      Q.forEach((q, c) => {
+        const w = W.get(c, si);
+        for (let i = 0; i < R.m; i++) lam[i] += w * q[i];
+      });
+      pivots.forEach((p, t) => (lam[p] = t === si ? 1 : 0));
+    } else {
+      lam = Q[si].map((v) => v / Q[si][pivots[si]]);
+      lam[pivots[si]] = 1;
+    }
+    let max = 0;
+    for (const v of lam) max = Math.max(max, Math.abs(v));
+    const forces: Record<string, number> = {};
+    for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
+    states.push({ pivot: sorted.find(([, i]) => i === pivots[si])![0], forces });
+  }
+  return states;
 }
 
 /**
