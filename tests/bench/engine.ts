@@ -77,8 +77,8 @@ for (const bodies of [10, 50, 100, 200, 500].filter((b) => b <= maxBodies)) {
     const layout = generate(bodies, shape, bodies * 7 + shape.length);
     // the median of an odd count (of two it would be the slower run); 500 bodies take two runs less
     const n = bodies >= 500 ? Math.max(1, runs - 2) : Math.max(runs, 5);
-    // one warm-up run so the JIT has compiled the loops (a server's worker thread is long-lived)
-    analyseConstraint(layout, "structured");
+    // three warm-up runs so the JIT has compiled the loops (the analysis worker is a long-lived thread)
+    for (let w = 0; w < 3; w++) analyseConstraint(layout, "structured");
     const s = time(() => analyseConstraint(layout, "structured"), n);
     const d = bodies <= denseMax ? time(() => analyseConstraint(layout, "dense"), Math.min(n, 2)) : null;
     if (d && d.value.counts.rank !== s.value.counts.rank)
