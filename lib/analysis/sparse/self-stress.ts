@@ -93,6 +93,27 @@ export function lastRowBasis(
     for (const q of touched) if (live[q]) for (let j = 6 * q; j < 6 * q + 6; j++) s += x[j] * x[j];
     return Math.sqrt(s);
   };
+  /** Givens rotation of slot row (p, j) and x over p's pattern: r ← c·r + s·x, x ← −s·r + c·x (s → −s undoes it) */
+  const turn = (p: number, j: number, cs: number, sn: number) => {
+    const pt = pattern[p];
+    const base = 6 * pt.length * j;
+    const rv = val[p];
+    for (let k = 0; k < pt.length; k++) {
+      const q = pt[k];
+      if (!live[q]) {
+        live[q] = 1;
+        touched.push(q);
+      }
+      const xo = 6 * q;
+      const ro = base + 6 * k;
+      for (let jj = k === 0 ? j : 0; jj < 6; jj++) {
+        const r0 = rv[ro + jj];
+        const x0 = x[xo + jj];
+        rv[ro + jj] = cs * r0 + sn * x0;
+        x[xo + jj] = -sn * r0 + cs * x0;
+      }
+    }
+  };
   // once `limit` rows are in, every earlier row depends on them
   for (let t = sorted.length - 1; t >= 0 && accepted < limit; t--) {
     const i = sorted[t];
@@ -134,21 +155,7 @@ export function lastRowBasis(
           // x is now keep · (the original row) + a combination of the original slot rows
           keep *= Math.abs(cs);
           turns.push(6 * p + j, cs, sn);
-          for (let k = 0; k < pt.length; k++) {
-            const q = pt[k];
-            if (!live[q]) {
-              live[q] = 1;
-              touched.push(q);
-            }
-            const xo = 6 * q;
-            const ro = base + 6 * k;
-            for (let jj = k === 0 ? j : 0; jj < 6; jj++) {
-              const r0 = rv[ro + jj];
-              const x0 = x[xo + jj];
-              rv[ro + jj] = cs * r0 + sn * x0;
-              x[xo + jj] = -sn * r0 + cs * x0;
-            }
-          }
+          turn(p, j, cs, sn);
           x[6 * p + j] = 0;
         } else {
           // dependent when even ‖x‖ / keep, a bound on the original row's distance to the slot rows' span, is
@@ -178,28 +185,8 @@ export function lastRowBasis(
       // undone, last first; x's blocks reappear as the slot rows' patterns need them
       for (let e = 0; e < cuts.length; e += 2) x[cuts[e]] = cuts[e + 1];
       for (let e = turns.length - 3; e >= 0; e -= 3) {
-        const c = turns[e];
-        const [cs, sn] = [turns[e + 1], turns[e + 2]];
-        const p = Math.floor(c / 6);
-        const j = c - 6 * p;
-        const pt = pattern[p];
-        const base = 6 * pt.length * j;
-        const rv = val[p];
-        for (let k = 0; k < pt.length; k++) {
-          const q = pt[k];
-          if (!live[q]) {
-            live[q] = 1;
-            touched.push(q);
-          }
-          const xo = 6 * q;
-          const ro = base + 6 * k;
-          for (let jj = k === 0 ? j : 0; jj < 6; jj++) {
-            const r1 = rv[ro + jj];
-            const x1 = x[xo + jj];
-            rv[ro + jj] = cs * r1 - sn * x1;
-            x[xo + jj] = sn * r1 + cs * x1;
-          }
-        }
+        const p = Math.floor(turns[e] / 6);
+        turn(p, turns[e] - 6 * p, turns[e + 1], -turns[e + 2]);
       }
     }
     for (const q of touched) {
