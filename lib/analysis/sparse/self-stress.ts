@@ -517,12 +517,17 @@ export function canonicalStatesSparse(R: SparseRows, contactIds: string[], spect
   return states;
 
   function stateOf(lam: Float64Array, p: number): SelfStressState {
-    let max = 0;
-    for (const v of lam) max = Math.max(max, Math.abs(v));
-    const forces: Record<string, number> = {};
-    for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
-    return { pivot: contactIds[p], forces };
+    return stateFrom(lam, contactIds[p], sorted);
   }
+}
+
+/** A state as reported: coefficients in sorted-id order, those below 1e-9 of the largest left out (§2). */
+function stateFrom(lam: Float64Array, pivot: string, sorted: (readonly [string, number])[]): SelfStressState {
+  let max = 0;
+  for (const v of lam) max = Math.max(max, Math.abs(v));
+  const forces: Record<string, number> = {};
+  for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
+  return { pivot, forces };
 }
 
 const vnorm = (v: ArrayLike<number>) => {
@@ -531,7 +536,7 @@ const vnorm = (v: ArrayLike<number>) => {
   return Math.sqrt(t);
 };
 
-/** Self-stress spaces up to this dimension are taken whole by the projection rule (all pivots, exact RREF). */
+/** Self-stress spaces up to this dimension are taken whole by the projection rule (every pivot, so the reduced form can be formed). */
 const PROJECTION_WHOLE = 50;
 
 /**
@@ -540,10 +545,11 @@ const PROJECTION_WHOLE = 50;
  * z_j = P_S e_j = e_j − A (AᵀA)⁺ P₁a_j (all rows; the pseudo-inverse by conjugate gradients, balanced to
  * round-off) has, against the earlier z's, the residual that row j of an orthonormal basis Y of S has against
  * the earlier rows of Y (Y maps coordinates isometrically onto S). So contacts are visited in sorted order and
- * one is a pivot when its z keeps more than 1e-8 after Gram–Schmidt on the earlier pivots' (the dense rule),
- * and the state of pivot s is Q (Q_P)⁻¹ e_s, Q the orthonormal basis built on the way: the RREF exactly when
- * every pivot is found (spaces up to PROJECTION_WHOLE), else the states of the first 50 pivots with zero on one
- * another (each balances; the pivots are the dense path's).
+ * one is a pivot when its z keeps more than 1e-8 after Gram–Schmidt on the earlier pivots' (the dense rule).
+ * With Q the orthonormal basis built on the way, the state of pivot s is the reduced form's Q (Q_P)⁻¹ e_s when
+ * every pivot is found (spaces up to PROJECTION_WHOLE) and Q_P is not singular to within ten decades; else the
+ * echelon state q_s / q_s[p_s] (1 on its pivot, 0 on every contact before it). Each balances, the states are
+ * independent, and the pivots are the dense path's.
  */
 function statesByProjection(R: SparseRows, sorted: (readonly [string, number])[], spectrum: LowSpectrum, tolerance: number): SelfStressState[] {
   const k = R.m - spectrum.rank;
@@ -628,11 +634,7 @@ function statesByProjection(R: SparseRows, sorted: (readonly [string, number])[]
       lam = Q[si].map((v) => v / Q[si][pivots[si]]);
       lam[pivots[si]] = 1;
     }
-    let max = 0;
-    for (const v of lam) max = Math.max(max, Math.abs(v));
-    const forces: Record<string, number> = {};
-    for (const [id, i] of sorted) if (Math.abs(lam[i]) >= 1e-9 * max) forces[id] = lam[i];
-    states.push({ pivot: sorted.find(([, i]) => i === pivots[si])![0], forces });
+    states.push(stateFrom(lam, sorted.find(([, i]) => i === pivots[si])![0], sorted));
   }
   return states;
 }
